@@ -1,0 +1,451 @@
+/*
+ * molq.h -- ideal-gas thermodynamic properties from molecular constants.
+ *
+ * This is molq's one public header and its reference manual.  molq computes
+ * partition functions and the thermodynamic functions that follow from them
+ * (cp, cv, h, u, s, g, a and their temperature derivatives) for ideal-gas
+ * species described by molecular constants, by statistical mechanics.
+ *
+ * Conventions used throughout
+ * ---------------------------
+ * Units:      SI molar at the boundary.  T in K, p in Pa, energies in J/mol,
+ *             entropies and heat capacities in J/(mol K), derivatives of
+ *             heat capacity in J/(mol K^2), molar mass in kg/mol.
+ *             Spectroscopic inputs (rotational constants, vibrational
+ *             wavenumbers, electronic level energies) are in cm^-1, the unit
+ *             of the trade.
+ * Errors:     every fallible call returns a molq_status; results come back
+ *             through out-pointers, which are left untouched on failure
+ *             unless the function says otherwise.  Calls that can fail for a
+ *             reason worth explaining take a caller-owned buffer
+ *             (char *err, size_t errlen) that receives a NUL-terminated
+ *             message naming the species and field; err may be NULL or
+ *             errlen 0.  The library never prints, exits or aborts, and
+ *             keeps no global or thread-local error state.
+ * Ownership:  objects the library allocates are freed by the library's own
+ *             *_free function; every *_free accepts NULL.  Borrowed pointers
+ *             are marked "borrowed" with the lifetime they have.
+ * Threads:    molq has no global mutable state.  molq_species and molq_db
+ *             handles are immutable once created: any number of threads may
+ *             evaluate the same handle at once without locks.  A molq_spec
+ *             (a mutable description) must not be modified by two threads at
+ *             once.
+ * ABI:        handles are opaque; enumerations only grow and never renumber;
+ *             no struct crosses the boundary.  Declarations after the
+ *             MOLQ_EXPERIMENTAL guard are outside the stability promise.
+ *
+ * CAUTION: molq computes ideal-gas estimates.  They are not a basis for the
+ * design of pressure equipment, burners or safety systems without
+ * verification under the applicable codes and licensed engineering review.
+ */
+#ifndef MOLQ_MOLQ_H
+#define MOLQ_MOLQ_H
+
+#include <stddef.h>
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* Export macro: symbols are hidden by default and only MOLQ_API ones are
+ * exported (see lib/molq.map for the versioned list). */
+#if defined(_WIN32) && defined(MOLQ_BUILDING_LIBRARY)
+#define MOLQ_API __declspec(dllexport)
+#elif defined(_WIN32) && !defined(MOLQ_STATIC)
+#define MOLQ_API __declspec(dllimport)
+#elif defined(__GNUC__) && defined(MOLQ_BUILDING_LIBRARY)
+#define MOLQ_API __attribute__((visibility("default")))
+#else
+#define MOLQ_API
+#endif
+
+/* ------------------------------------------------------------------------ */
+/* Version                                                                  */
+/* ------------------------------------------------------------------------ */
+
+/* Compile-time version of this header.  MOLQ_VERSION_NUMBER is
+ * major*10000 + minor*100 + patch.  Added in 0.1.0. */
+#define MOLQ_VERSION_MAJOR 0
+#define MOLQ_VERSION_MINOR 1
+#define MOLQ_VERSION_PATCH 0
+#define MOLQ_VERSION_NUMBER \
+    (MOLQ_VERSION_MAJOR * 10000 + MOLQ_VERSION_MINOR * 100 + MOLQ_VERSION_PATCH)
+#define MOLQ_VERSION_STRING "0.1.0"
+
+/* @return the version number of the library actually linked, in the
+ *         MOLQ_VERSION_NUMBER encoding.  Compare with the macro to detect a
+ *         header/library mismatch.  Thread-safe.  Added in 0.1.0. */
+MOLQ_API unsigned molq_version_number(void);
+
+/* @return the version of the linked library as a static string such as
+ *         "0.1.0" (never NULL, never freed).  Thread-safe.  Added in 0.1.0. */
+MOLQ_API const char *molq_version_string(void);
+
+/* ------------------------------------------------------------------------ */
+/* Status codes                                                             */
+/* ------------------------------------------------------------------------ */
+
+/* Status returned by every fallible call.  Values never change; new codes
+ * are appended.  Added in 0.1.0. */
+typedef enum molq_status {
+    MOLQ_OK = 0,
+    MOLQ_EARG = 1,       /* invalid argument: NULL pointer, unknown enum value,
+                            index out of range */
+    MOLQ_ENOMEM = 2,     /* memory allocation failed */
+    MOLQ_EIO = 3,        /* a file could not be opened or read */
+    MOLQ_ESYNTAX = 4,    /* malformed JSON (message gives line and column) */
+    MOLQ_EKEY = 5,       /* unknown key, or a required key is missing */
+    MOLQ_ETYPE = 6,      /* a key holds a value of the wrong JSON type */
+    MOLQ_EVALUE = 7,     /* a value is outside its allowed range (mass <= 0,
+                            non-finite number, wrong count, bad ordering...) */
+    MOLQ_EDUPLICATE = 8, /* two species share a name */
+    MOLQ_ENOTFOUND = 9,  /* no species of that name */
+    MOLQ_EDOMAIN = 10,   /* T or p is not finite and positive */
+    MOLQ_ERANGE = 11,    /* T is outside the validity range of a model the
+                            species uses (see molq_species_t_min) */
+    MOLQ_ELIMIT = 12     /* input exceeds a documented size limit */
+} molq_status;
+
+/* @return a static English description of a status code (never NULL; an
+ *         unknown code gives "unknown status").  Thread-safe.  Added in 0.1.0. */
+MOLQ_API const char *molq_status_string(molq_status status);
+
+/* ------------------------------------------------------------------------ */
+/* Properties                                                               */
+/* ------------------------------------------------------------------------ */
+
+/* Thermodynamic properties, per mole of ideal gas at temperature T and
+ * pressure p.  Values never change; new properties are appended.
+ *
+ * Enthalpy scale: h(T) = dfH(298.15 K) + [H(T) - H(298.15 K)] where dfH is
+ * the species' standard enthalpy of formation at 298.15 K.  A species
+ * without a formation enthalpy is reported with dfH = 0, i.e. h is then the
+ * sensible enthalpy h(T) - h(298.15 K) (the usual convention for elements in
+ * their reference state).  u = h - RT, g = h - T s, a = u - T s.
+ *
+ * Entropy is the conventional ("practical") entropy: nuclear-spin and
+ * isotope-mixing entropy excluded, at pressure p (s depends on p; cp, h, u
+ * do not).  Added in 0.1.0. */
+typedef enum molq_property {
+    MOLQ_LNQ = 0,          /* ln(q/N): molecular partition function per
+                              molecule at (T, p), energy zero at the ground
+                              level; dimensionless                        */
+    MOLQ_CP = 1,           /* isobaric heat capacity, J/(mol K)           */
+    MOLQ_CV = 2,           /* isochoric heat capacity, J/(mol K)          */
+    MOLQ_H = 3,            /* enthalpy on the scale above, J/mol          */
+    MOLQ_U = 4,            /* internal energy u = h - RT, J/mol           */
+    MOLQ_S = 5,            /* entropy at p, J/(mol K)                     */
+    MOLQ_G = 6,            /* Gibbs energy g = h - T s, J/mol             */
+    MOLQ_A = 7,            /* Helmholtz energy a = u - T s, J/mol         */
+    MOLQ_H_MINUS_H298 = 8, /* h(T) - h(298.15 K), J/mol                   */
+    MOLQ_GEF = 9,          /* Gibbs energy function -(g - h(298.15))/T,
+                              J/(mol K)                                   */
+    MOLQ_H_MINUS_H0 = 10,  /* h(T) - h(0 K), J/mol                        */
+    MOLQ_DCP_DT = 11,      /* dcp/dT, J/(mol K^2)                         */
+    MOLQ_DCV_DT = 12,      /* dcv/dT, J/(mol K^2)                         */
+    MOLQ_DS_DT = 13,       /* ds/dT at constant p, J/(mol K^2)            */
+    MOLQ_DH_DT = 14,       /* dh/dT at constant p (= cp), J/(mol K)       */
+    MOLQ_DGRT_DT = 15      /* d(g/RT)/dT at constant p (= -h/(R T^2)), 1/K */
+} molq_property;
+
+/* @return the number of properties this library knows (properties are
+ *         0 .. count-1).  Grows with new versions.  Added in 0.1.0. */
+MOLQ_API size_t molq_property_count(void);
+
+/* @return the short name of a property ("cp", "h_minus_h298", ...), a static
+ *         string, or NULL for an unknown value.  Added in 0.1.0. */
+MOLQ_API const char *molq_property_name(molq_property prop);
+
+/* @return the SI unit of a property per mole ("J/(mol K)", "1" for
+ *         dimensionless), static, or NULL for an unknown value.  Added 0.1.0. */
+MOLQ_API const char *molq_property_unit(molq_property prop);
+
+/* Look a property up by its short name (as returned by molq_property_name).
+ * @return MOLQ_OK, MOLQ_EARG if an argument is NULL, MOLQ_ENOTFOUND if the
+ *         name is unknown.  Thread-safe.  Added in 0.1.0. */
+MOLQ_API molq_status molq_property_from_name(const char *name,
+                                             molq_property *out);
+
+/* Standard-state pressure used by the published tables, 1e5 Pa. */
+#define MOLQ_P_STANDARD 1.0e5
+
+/* Reference temperature of the enthalpy scale, K. */
+#define MOLQ_T_REF 298.15
+
+/* ------------------------------------------------------------------------ */
+/* Species descriptions (mutable) and species (immutable)                   */
+/* ------------------------------------------------------------------------ */
+
+/* Molecular structure.  Added in 0.1.0. */
+typedef enum molq_structure {
+    MOLQ_ATOM = 0,      /* no rotation, no vibration                     */
+    MOLQ_LINEAR = 1,    /* one rotational constant B                      */
+    MOLQ_NONLINEAR = 2  /* three rotational constants A >= B >= C         */
+} molq_structure;
+
+/* Rotation model of a linear or nonlinear molecule.  Added in 0.1.0.
+ * MOLQ_ROTOR_CORRECTED (default): the rigid rotor with its quantum
+ *   corrections.  Linear: the Mulholland expansion
+ *   q = T/(sigma theta) [1 + theta/3T + theta^2/15T^2 + 4 theta^3/315T^3]
+ *   for T >= 20 theta and the exact sum (2J+1) exp(-J(J+1) theta/T) / sigma
+ *   below, so it is valid at every T (as a spin-averaged rigid rotor).
+ *   Nonlinear: the classical top times [1 + c/T] with the first quantum
+ *   correction c = (2(tA+tB+tC) - tA tB/tC - tB tC/tA - tA tC/tB)/12 (t =
+ *   rotational temperatures); relative error in q below 0.3 % at
+ *   T = theta_A and falling as (theta_A/T)^2; for T < theta_A the
+ *   evaluation returns MOLQ_ERANGE.
+ * MOLQ_ROTOR_CLASSICAL: the classical rotor, q = T/(sigma theta) or
+ *   sqrt(pi T^3/(tA tB tC))/sigma, as textbook formulas use; no T limit. */
+typedef enum molq_rotor {
+    MOLQ_ROTOR_CORRECTED = 0,
+    MOLQ_ROTOR_CLASSICAL = 1
+} molq_rotor;
+
+/* A mutable description of one species, filled field by field and turned
+ * into an immutable molq_species by molq_species_create.  Setters store
+ * values without judging them; all validation happens in
+ * molq_species_create, which names the offending field.  Not thread-safe
+ * for concurrent modification. */
+typedef struct molq_spec_s molq_spec;
+
+/* An immutable species built from a description.  Thread-safe to share. */
+typedef struct molq_species_s molq_species;
+
+/* Create an empty description named `name` (copied; 1..255 bytes, UTF-8).
+ * Defaults: structure atom, symmetry number 1, no rotational constants, no
+ * vibrations, a single non-degenerate electronic ground level at 0 unless
+ * levels are added, no formation enthalpy, rotor MOLQ_ROTOR_CORRECTED,
+ * molar mass unset (required).
+ * @return MOLQ_OK, MOLQ_EARG (NULL argument), MOLQ_ENOMEM.
+ * Ownership: *out is the caller's; free with molq_spec_free.  Added 0.1.0. */
+MOLQ_API molq_status molq_spec_new(const char *name, molq_spec **out);
+
+/* Free a description.  Accepts NULL.  Added in 0.1.0. */
+MOLQ_API void molq_spec_free(molq_spec *spec);
+
+/* Set the chemical formula (free text such as "CO2", copied).  Used for
+ * display, and for the molar mass when none is set (standard atomic
+ * weights).  @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_formula(molq_spec *spec,
+                                           const char *formula);
+
+/* Set the free-text source of the data (citation; copied).
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_source(molq_spec *spec, const char *source);
+
+/* Set the molar mass in kg/mol (e.g. 0.0280134 for N2).
+ * @return MOLQ_OK or MOLQ_EARG (spec NULL).  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_molar_mass(molq_spec *spec,
+                                              double kg_per_mol);
+
+/* Set the structure.  @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_structure(molq_spec *spec,
+                                             molq_structure structure);
+
+/* Set the rotational symmetry number (integer >= 1).
+ * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_symmetry_number(molq_spec *spec,
+                                                   int sigma);
+
+/* Set the rotational constants in cm^-1: one (B) for a linear molecule,
+ * three (A >= B >= C) for a nonlinear one.  The n values are copied
+ * (n <= 3).  @return MOLQ_OK, MOLQ_EARG (NULL, or n > 3).  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_rotational_constants(molq_spec *spec,
+                                                        const double *cm1,
+                                                        size_t n);
+
+/* Set the rotation model.  @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_rotor(molq_spec *spec, molq_rotor rotor);
+
+/* Append a harmonic vibrational mode: wavenumber in cm^-1 (> 0), integer
+ * degeneracy (>= 1).  @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM,
+ * MOLQ_ELIMIT.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_add_vibration(molq_spec *spec,
+                                             double wavenumber_cm1,
+                                             int degeneracy);
+
+/* Append an electronic level: energy above the ground level in cm^-1
+ * (>= 0), integer degeneracy (>= 1).  Once any level is added the default
+ * ground level is replaced by the list given.  @return MOLQ_OK, MOLQ_EARG,
+ * MOLQ_ENOMEM, MOLQ_ELIMIT.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_add_electronic_level(molq_spec *spec,
+                                                    double energy_cm1,
+                                                    int degeneracy);
+
+/* Set the standard enthalpy of formation at 298.15 K in J/mol.
+ * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_formation_enthalpy(molq_spec *spec,
+                                                      double j_per_mol);
+
+/* Validate a description and build an immutable species from it.
+ * On failure nothing is allocated, *out is untouched and err names the
+ * species and field ("species 'X': field 'symmetry_number': ...").
+ * @return MOLQ_OK, MOLQ_EARG (NULL spec/out), MOLQ_EKEY (molar mass neither
+ *         set nor computable from the formula), MOLQ_EVALUE (a value out of
+ *         range), MOLQ_ENOMEM.
+ * Ownership: *out is the caller's; free with molq_species_free.  The
+ * description may be freed or reused afterwards.  Thread-safe for distinct
+ * descriptions.  Added in 0.1.0. */
+MOLQ_API molq_status molq_species_create(const molq_spec *spec,
+                                         molq_species **out, char *err,
+                                         size_t errlen);
+
+/* Free a species created by molq_species_create.  Accepts NULL.  Never pass
+ * a species borrowed from a molq_db.  Added in 0.1.0. */
+MOLQ_API void molq_species_free(molq_species *species);
+
+/* @return the species name (borrowed, valid while the species lives), or
+ *         NULL if species is NULL.  Added in 0.1.0. */
+MOLQ_API const char *molq_species_name(const molq_species *species);
+
+/* @return the formula as given ("" when none; borrowed), NULL if species
+ *         is NULL.  Added in 0.1.0. */
+MOLQ_API const char *molq_species_formula(const molq_species *species);
+
+/* @return the molar mass in kg/mol, or 0 if species is NULL.  Added 0.1.0. */
+MOLQ_API double molq_species_molar_mass(const molq_species *species);
+
+/* @return 1 if the species carries a standard enthalpy of formation, 0 if
+ *         not (h is then the sensible enthalpy, see molq_property).  */
+MOLQ_API int molq_species_has_formation_enthalpy(const molq_species *species);
+
+/* @return the lowest temperature in K at which every model of the species
+ *         is valid (0 when no model has a lower limit).  Evaluations below
+ *         it return MOLQ_ERANGE.  Added in 0.1.0. */
+MOLQ_API double molq_species_t_min(const molq_species *species);
+
+/* ------------------------------------------------------------------------ */
+/* Evaluation.  All evaluation calls are thread-safe on a shared species,   */
+/* allocate nothing and touch no global state.                              */
+/* ------------------------------------------------------------------------ */
+
+/* Evaluate one property per mole at temperature T (K) and pressure p (Pa).
+ * @return MOLQ_OK, MOLQ_EARG (NULL pointer, unknown property), MOLQ_EDOMAIN
+ *         (T or p not finite and > 0), MOLQ_ERANGE (T below
+ *         molq_species_t_min).  *out untouched on failure.  Added 0.1.0. */
+MOLQ_API molq_status molq_eval(const molq_species *species, double T,
+                               double p, molq_property prop, double *out);
+
+/* Evaluate several properties at one state: out[i] receives props[i].
+ * Cheaper than separate molq_eval calls (the partition function is summed
+ * once).  @return as molq_eval; on failure out is untouched.  Added 0.1.0. */
+MOLQ_API molq_status molq_eval_many(const molq_species *species, double T,
+                                    double p, const molq_property *props,
+                                    size_t nprops, double *out);
+
+/* Evaluate one property over n temperatures at one pressure:
+ * out[i*out_stride] = prop(T[i*T_stride], p).  Strides count doubles and
+ * must be >= 1.  If any T is invalid the call returns its status and the
+ * contents of out are unspecified (the call stops at the first bad T).
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_EDOMAIN, MOLQ_ERANGE.  Added in 0.1.0. */
+MOLQ_API molq_status molq_eval_batch(const molq_species *species,
+                                     molq_property prop, double p,
+                                     const double *T, size_t T_stride,
+                                     double *out, size_t out_stride,
+                                     size_t n);
+
+/* As molq_eval, per unit mass: extensive properties (cp, cv, h, u, s, g, a,
+ * h_minus_h298, gef, h_minus_h0 and the derivatives) divided by the molar
+ * mass, giving J/(kg K), J/kg, J/(kg K^2); MOLQ_LNQ and MOLQ_DGRT_DT are
+ * returned unchanged.  Added in 0.1.0. */
+MOLQ_API molq_status molq_eval_per_mass(const molq_species *species,
+                                        double T, double p,
+                                        molq_property prop, double *out);
+
+/* ------------------------------------------------------------------------ */
+/* Per-mode breakdown                                                       */
+/* ------------------------------------------------------------------------ */
+
+/* Kinds of modes (groups of degrees of freedom).  Values never change; new
+ * kinds are appended.  Added in 0.1.0. */
+typedef enum molq_mode_kind {
+    MOLQ_MODE_TRANSLATION = 0,
+    MOLQ_MODE_ROTATION = 1,
+    MOLQ_MODE_VIBRATION = 2,   /* all harmonic vibrational modes together */
+    MOLQ_MODE_ELECTRONIC = 3
+} molq_mode_kind;
+
+/* @return the number of modes of a species (0 if species is NULL). */
+MOLQ_API size_t molq_species_mode_count(const molq_species *species);
+
+/* Kind of mode `index` (0 .. count-1).
+ * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_species_mode_kind(const molq_species *species,
+                                            size_t index,
+                                            molq_mode_kind *out);
+
+/* @return the short name of a mode kind ("translation", ...), static, or
+ *         NULL for an unknown value.  Added in 0.1.0. */
+MOLQ_API const char *molq_mode_kind_name(molq_mode_kind kind);
+
+/* Contribution of mode `index` to a property at (T, p).  Supported:
+ * MOLQ_LNQ (its ln q; translation includes the kT/p volume), MOLQ_U (its
+ * thermal energy above its ground level, RT<E>/kT, J/mol), MOLQ_CV, MOLQ_S
+ * (translation carries the +R of the ideal-gas entropy and the pressure),
+ * MOLQ_DCV_DT.  The contributions add up to the species' value for lnq,
+ * cv, s, dcv_dT and to h - h(0) - RT for u.
+ * @return MOLQ_OK, MOLQ_EARG (bad index or unsupported property),
+ *         MOLQ_EDOMAIN, MOLQ_ERANGE.  Added in 0.1.0. */
+MOLQ_API molq_status molq_eval_mode(const molq_species *species, size_t index,
+                                    double T, double p, molq_property prop,
+                                    double *out);
+
+/* ------------------------------------------------------------------------ */
+/* Species databases (sets of species read from JSON)                       */
+/* ------------------------------------------------------------------------ */
+
+/* An immutable set of species.  Thread-safe to share. */
+typedef struct molq_db_s molq_db;
+
+/* Read a species file (JSON, schema version 1; see the README for keys).
+ * On failure nothing is allocated and err says what and where: the line
+ * and column of a syntax error, or the species and field of a bad value.
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_EIO, MOLQ_ESYNTAX, MOLQ_EKEY,
+ *         MOLQ_ETYPE, MOLQ_EVALUE, MOLQ_EDUPLICATE, MOLQ_ELIMIT (file over
+ *         64 MiB, over 100000 species), MOLQ_ENOMEM.
+ * Ownership: *out is the caller's; free with molq_db_free.  Added 0.1.0. */
+MOLQ_API molq_status molq_db_read_file(const char *path, molq_db **out,
+                                       char *err, size_t errlen);
+
+/* As molq_db_read_file, from `len` bytes of JSON text in memory (need not
+ * be NUL-terminated).  Added in 0.1.0. */
+MOLQ_API molq_status molq_db_read_string(const char *json, size_t len,
+                                         molq_db **out, char *err,
+                                         size_t errlen);
+
+/* Open the starter species set compiled into the library (Ar, N2, O2, CO,
+ * CO2, H2O, ... each with its published source).  Added in 0.1.0. */
+MOLQ_API molq_status molq_db_builtin(molq_db **out, char *err,
+                                     size_t errlen);
+
+/* Free a database and every species borrowed from it.  Accepts NULL. */
+MOLQ_API void molq_db_free(molq_db *db);
+
+/* @return the number of species (0 if db is NULL).  Added in 0.1.0. */
+MOLQ_API size_t molq_db_count(const molq_db *db);
+
+/* @return species `index` in file order, borrowed (valid until
+ *         molq_db_free), or NULL if the index is out of range. */
+MOLQ_API const molq_species *molq_db_species(const molq_db *db, size_t index);
+
+/* Find a species by exact name.  *out is borrowed (valid until molq_db_free).
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
+MOLQ_API molq_status molq_db_find(const molq_db *db, const char *name,
+                                  const molq_species **out);
+
+/* @return the free-text source of a species' data as given in its file
+ *         ("" when none), borrowed; NULL if species is NULL.  Added 0.1.0. */
+MOLQ_API const char *molq_species_source(const molq_species *species);
+
+#ifdef MOLQ_EXPERIMENTAL
+/* ------------------------------------------------------------------------ */
+/* Experimental API: may change or disappear in any release; not covered  */
+/* by the ABI promise.  Opt in by defining MOLQ_EXPERIMENTAL.               */
+/* ------------------------------------------------------------------------ */
+#endif
+
+#ifdef __cplusplus
+}
+#endif
+
+#endif /* MOLQ_MOLQ_H */

@@ -1,0 +1,86 @@
+/* Public evaluation calls: argument checks, then lib/thermo. */
+#include <math.h>
+
+#include "species/species.h"
+#include "thermo/thermo.h"
+
+static int bad_prop(molq_property p)
+{
+    return (int)p < 0 || (size_t)p >= molq_property_count();
+}
+
+static molq_status check_state(const molq_species *sp, double T, double p)
+{
+    if (!isfinite(T) || T <= 0.0 || !isfinite(p) || p <= 0.0)
+        return MOLQ_EDOMAIN;
+    if (T < sp->t_min)
+        return MOLQ_ERANGE;
+    return MOLQ_OK;
+}
+
+molq_status molq_eval_many(const molq_species *sp, double T, double p,
+                           const molq_property *props, size_t nprops,
+                           double *out)
+{
+    molq_status st;
+    size_t i;
+    if (sp == NULL || (nprops > 0 && (props == NULL || out == NULL)))
+        return MOLQ_EARG;
+    for (i = 0; i < nprops; i++)
+        if (bad_prop(props[i]))
+            return MOLQ_EARG;
+    if ((st = check_state(sp, T, p)) != MOLQ_OK)
+        return st;
+    molq_thermo_eval(sp, T, p, props, nprops, out);
+    return MOLQ_OK;
+}
+
+molq_status molq_eval(const molq_species *sp, double T, double p,
+                      molq_property prop, double *out)
+{
+    return molq_eval_many(sp, T, p, &prop, 1, out);
+}
+
+molq_status molq_eval_batch(const molq_species *sp, molq_property prop,
+                            double p, const double *T, size_t T_stride,
+                            double *out, size_t out_stride, size_t n)
+{
+    size_t i;
+    if (sp == NULL || bad_prop(prop) || T_stride == 0 || out_stride == 0 ||
+        (n > 0 && (T == NULL || out == NULL)))
+        return MOLQ_EARG;
+    for (i = 0; i < n; i++) {
+        double t = T[i * T_stride];
+        molq_status st = check_state(sp, t, p);
+        if (st != MOLQ_OK)
+            return st;
+        molq_thermo_eval(sp, t, p, &prop, 1, &out[i * out_stride]);
+    }
+    return MOLQ_OK;
+}
+
+molq_status molq_eval_per_mass(const molq_species *sp, double T, double p,
+                               molq_property prop, double *out)
+{
+    double v;
+    molq_status st = molq_eval(sp, T, p, prop, &v);
+    if (st != MOLQ_OK)
+        return st;
+    *out = (prop == MOLQ_LNQ || prop == MOLQ_DGRT_DT) ? v : v / sp->molar_mass;
+    return MOLQ_OK;
+}
+
+molq_status molq_eval_mode(const molq_species *sp, size_t index, double T,
+                           double p, molq_property prop, double *out)
+{
+    molq_status st;
+    double v;
+    if (sp == NULL || out == NULL || index >= sp->nmodes || bad_prop(prop))
+        return MOLQ_EARG;
+    if ((st = check_state(sp, T, p)) != MOLQ_OK)
+        return st;
+    if (molq_thermo_mode(sp, index, T, p, prop, &v) != 0)
+        return MOLQ_EARG;
+    *out = v;
+    return MOLQ_OK;
+}

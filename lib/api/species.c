@@ -1,0 +1,74 @@
+/* Public species lifetime and queries. */
+#include "core/errbuf.h"
+#include "species/species.h"
+#include "thermo/thermo.h"
+
+molq_status molq_species_create(const molq_spec *spec, molq_species **out,
+                                char *err, size_t errlen)
+{
+    double mass;
+    molq_status st;
+    molq_species *sp;
+    if (spec == NULL || out == NULL) {
+        molq_errf(err, errlen, "molq_species_create: NULL argument");
+        return MOLQ_EARG;
+    }
+    if ((st = molq_spec_validate(spec, &mass, err, errlen)) != MOLQ_OK)
+        return st;
+    if ((st = molq_species_build(spec, mass, &sp)) != MOLQ_OK) {
+        molq_errf(err, errlen, "species '%s': out of memory", spec->name);
+        return st;
+    }
+    molq_thermo_prepare(sp);
+    *out = sp;
+    return MOLQ_OK;
+}
+
+void molq_species_free(molq_species *species)
+{
+    molq_species_destroy(species);
+}
+
+const char *molq_species_name(const molq_species *sp)
+{
+    return sp ? sp->name : NULL;
+}
+
+const char *molq_species_formula(const molq_species *sp)
+{
+    return sp ? sp->formula : NULL;
+}
+
+const char *molq_species_source(const molq_species *sp)
+{
+    return sp ? sp->source : NULL;
+}
+
+double molq_species_molar_mass(const molq_species *sp)
+{
+    return sp ? sp->molar_mass : 0.0;
+}
+
+int molq_species_has_formation_enthalpy(const molq_species *sp)
+{
+    return sp ? sp->has_formation_enthalpy : 0;
+}
+
+double molq_species_t_min(const molq_species *sp)
+{
+    return sp ? sp->t_min : 0.0;
+}
+
+size_t molq_species_mode_count(const molq_species *sp)
+{
+    return sp ? sp->nmodes : 0;
+}
+
+molq_status molq_species_mode_kind(const molq_species *sp, size_t index,
+                                   molq_mode_kind *out)
+{
+    if (sp == NULL || out == NULL || index >= sp->nmodes)
+        return MOLQ_EARG;
+    *out = sp->modes[index].kind;
+    return MOLQ_OK;
+}

@@ -1,0 +1,87 @@
+#include "core/cumulants.h"
+
+#include <math.h>
+
+void molq_cumulants_power(double a, molq_cumulants *out)
+{
+    out->k1 = a;
+    out->k2 = a;
+    out->k3 = 2.0 * a;
+}
+
+void molq_cumulants_levels(const double *theta, const double *g, size_t n,
+                           double T, molq_cumulants *out)
+{
+    double tmin = theta[0], q = 0.0, m1 = 0.0, m2 = 0.0, m3 = 0.0;
+    size_t i;
+    for (i = 1; i < n; i++)
+        if (theta[i] < tmin)
+            tmin = theta[i];
+    for (i = 0; i < n; i++) {
+        double y = (theta[i] - tmin) / T;
+        double w = g[i] * exp(-y);
+        if (w == 0.0)
+            continue; /* underflowed level: skip, or 0 * inf would be NaN */
+        q += w;
+        m1 += w * y;
+    }
+    m1 /= q;
+    for (i = 0; i < n; i++) {
+        double y = (theta[i] - tmin) / T;
+        double w = g[i] * exp(-y);
+        double d = y - m1;
+        if (w == 0.0)
+            continue;
+        m2 += w * d * d;
+        m3 += w * d * d * d;
+    }
+    out->lnq = log(q) - tmin / T;
+    out->k1 = m1 + tmin / T;
+    out->k2 = m2 / q;
+    out->k3 = m3 / q;
+}
+
+void molq_cumulants_series(const double *c, size_t n, double y,
+                           molq_cumulants *out)
+{
+    /* P0 = f, P1 = D f, P2 = D^2 f, P3 = D^3 f with D = y d/dy: the term
+     * c y^i contributes c y^i i^m to D^m f. */
+    double p0 = 1.0, p1 = 0.0, p2 = 0.0, p3 = 0.0, yi = 1.0;
+    double h1, h2, h3;
+    size_t i;
+    for (i = 1; i <= n; i++) {
+        double t;
+        double di = (double)i;
+        yi *= y;
+        t = c[i - 1] * yi;
+        p0 += t;
+        p1 += t * di;
+        p2 += t * di * di;
+        p3 += t * di * di * di;
+    }
+    /* Derivatives of h = ln f with respect to t = ln beta. */
+    h1 = p1 / p0;
+    h2 = p2 / p0 - h1 * h1;
+    h3 = p3 / p0 - 3.0 * h1 * (p2 / p0) + 2.0 * h1 * h1 * h1;
+    out->lnq = log(p0);
+    out->k1 = -h1;
+    out->k2 = h2 - h1;
+    out->k3 = -(h3 - 3.0 * h2 + 2.0 * h1);
+}
+
+void molq_cumulants_add_harmonic(double x, double d, unsigned need,
+                                 molq_cumulants *acc)
+{
+    double e = exp(-x);
+    double om, r;
+    if (e == 0.0)
+        return; /* frozen mode: q = 1, no energy, no fluctuation */
+    om = -expm1(-x); /* 1 - e without cancellation */
+    r = x * e / om;  /* k1 of the mode */
+    acc->k1 += d * r;
+    acc->k2 += d * r * x / om;
+    if (need & MOLQ_NEED_LNQ)
+        acc->lnq -= d * (x > 1.0 ? log1p(-e) : log(om));
+    if (need & MOLQ_NEED_K3)
+        acc->k3 += d * r * x * x * (1.0 + e) / (om * om);
+}

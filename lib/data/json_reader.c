@@ -1,0 +1,325 @@
+/* Reading species files with jansson.
+ *
+ * {"schema_version": 1, "description": "...", "species": [ENTRY, ...]}
+ * ENTRY keys: name (string, required), formula (string), molar_mass (number,
+ * g/mol), structure ("atom" | "linear" | "nonlinear", required),
+ * symmetry_number (integer), rotational_constants (array of numbers, cm^-1),
+ * rotor ("corrected" | "classical"), vibrations (array of {"wavenumber":
+ * cm^-1, "degeneracy": integer, default 1}), electronic_levels (array of
+ * {"energy": cm^-1, "degeneracy": integer, default 1}),
+ * formation_enthalpy_298 (number, J/mol), source (string). */
+#include <jansson.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "core/errbuf.h"
+#include "data/json_reader.h"
+
+#define SCHEMA_VERSION 1
+
+typedef struct ctx {
+    char *err;
+    size_t errlen;
+    char who[300]; /* "species 'N2'" or "species #3" */
+} ctx;
+
+static molq_status key_error(ctx *c, molq_status code, const char *field,
+                             const char *what)
+{
+    molq_errf(c->err, c->errlen, "%s: field '%s': %s", c->who, field, what);
+    return code;
+}
+
+/* Reject keys not in the NULL-terminated list `allowed`. */
+static molq_status check_keys(ctx *c, json_t *obj, const char *const *allowed,
+                              const char *where)
+{
+    const char *key;
+    json_t *val;
+    json_object_foreach(obj, key, val) {
+        const char *const *a;
+        int ok = 0;
+        (void)val;
+        for (a = allowed; *a != NULL; a++)
+            if (strcmp(*a, key) == 0)
+                ok = 1;
+        if (!ok) {
+            molq_errf(c->err, c->errlen, "%s: field '%s%s': unknown key",
+                      c->who, where, key);
+            return MOLQ_EKEY;
+        }
+    }
+    return MOLQ_OK;
+}
+
+static molq_status get_number(ctx *c, json_t *v, const char *field,
+                              double *out)
+{
+    if (!json_is_number(v))
+        return key_error(c, MOLQ_ETYPE, field, "expected a number");
+    *out = json_number_value(v);
+    return MOLQ_OK;
+}
+
+static molq_status get_int(ctx *c, json_t *v, const char *field, int *out)
+{
+    json_int_t i;
+    if (!json_is_integer(v))
+        return key_error(c, MOLQ_ETYPE, field, "expected an integer");
+    i = json_integer_value(v);
+    /* Clamp: out-of-int values are reported by validation as out of range. */
+    *out = i > 1000000000 ? 1000000000 : i < -1000000000 ? -1000000000 : (int)i;
+    return MOLQ_OK;
+}
+
+static molq_status get_string(ctx *c, json_t *v, const char *field,
+                              const char **out)
+{
+    if (!json_is_string(v))
+        return key_error(c, MOLQ_ETYPE, field, "expected a string");
+    *out = json_string_value(v);
+    return MOLQ_OK;
+}
+
+/* An array of {value_key, "degeneracy"} objects appended with `add`. */
+static molq_status read_pairs(ctx *c, molq_spec *s, json_t *arr,
+                              const char *field, const char *value_key,
+                              molq_status (*add)(molq_spec *, double, int))
+{
+    const char *const allowed[] = {value_key, "degeneracy", NULL};
+    char name[96];
+    size_t i;
+    json_t *item;
+    molq_status st;
+    if (!json_is_array(arr))
+        return key_error(c, MOLQ_ETYPE, field, "expected an array of objects");
+    json_array_foreach(arr, i, item) {
+        double value;
+        int deg = 1;
+        json_t *v;
+        snprintf(name, sizeof name, "%s[%zu].", field, i);
+        if (!json_is_object(item))
+            return key_error(c, MOLQ_ETYPE, field,
+                             "expected an array of objects");
+        if ((st = check_keys(c, item, allowed, name)) != MOLQ_OK)
+            return st;
+        snprintf(name, sizeof name, "%s[%zu].%s", field, i, value_key);
+        v = json_object_get(item, value_key);
+        if (v == NULL)
+            return key_error(c, MOLQ_EKEY, name, "missing");
+        if ((st = get_number(c, v, name, &value)) != MOLQ_OK)
+            return st;
+        v = json_object_get(item, "degeneracy");
+        snprintf(name, sizeof name, "%s[%zu].degeneracy", field, i);
+        if (v != NULL && (st = get_int(c, v, name, &deg)) != MOLQ_OK)
+            return st;
+        st = add(s, value, deg);
+        if (st == MOLQ_ELIMIT)
+            return key_error(c, st, field, "too many entries (see the size "
+                             "limits in the README)");
+        if (st != MOLQ_OK)
+            return st;
+    }
+    return MOLQ_OK;
+}
+
+static const char *const entry_keys[] = {
+    "name", "formula", "molar_mass", "structure", "symmetry_number",
+    "rotational_constants", "rotor", "vibrations", "electronic_levels",
+    "formation_enthalpy_298", "source", NULL};
+
+static molq_status read_entry(ctx *c, json_t *e, molq_spec *s)
+{
+    json_t *v;
+    molq_status st;
+    const char *text;
+    double x;
+    int i;
+
+    if ((st = check_keys(c, e, entry_keys, "")) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(e, "formula")) != NULL) {
+        if ((st = get_string(c, v, "formula", &text)) != MOLQ_OK ||
+            (st = molq_spec_set_formula(s, text)) != MOLQ_OK)
+            return st;
+    }
+    if ((v = json_object_get(e, "source")) != NULL) {
+        if ((st = get_string(c, v, "source", &text)) != MOLQ_OK ||
+            (st = molq_spec_set_source(s, text)) != MOLQ_OK)
+            return st;
+    }
+    if ((v = json_object_get(e, "molar_mass")) != NULL) {
+        if ((st = get_number(c, v, "molar_mass", &x)) != MOLQ_OK)
+            return st;
+        molq_spec_set_molar_mass(s, x * 1e-3); /* g/mol in the file */
+    }
+    v = json_object_get(e, "structure");
+    if (v == NULL)
+        return key_error(c, MOLQ_EKEY, "structure", "missing (atom, linear or "
+                         "nonlinear)");
+    if ((st = get_string(c, v, "structure", &text)) != MOLQ_OK)
+        return st;
+    if (strcmp(text, "atom") == 0)
+        molq_spec_set_structure(s, MOLQ_ATOM);
+    else if (strcmp(text, "linear") == 0)
+        molq_spec_set_structure(s, MOLQ_LINEAR);
+    else if (strcmp(text, "nonlinear") == 0)
+        molq_spec_set_structure(s, MOLQ_NONLINEAR);
+    else
+        return key_error(c, MOLQ_EVALUE, "structure",
+                         "must be \"atom\", \"linear\" or \"nonlinear\"");
+    if ((v = json_object_get(e, "rotor")) != NULL) {
+        if ((st = get_string(c, v, "rotor", &text)) != MOLQ_OK)
+            return st;
+        if (strcmp(text, "corrected") == 0)
+            molq_spec_set_rotor(s, MOLQ_ROTOR_CORRECTED);
+        else if (strcmp(text, "classical") == 0)
+            molq_spec_set_rotor(s, MOLQ_ROTOR_CLASSICAL);
+        else
+            return key_error(c, MOLQ_EVALUE, "rotor",
+                             "must be \"corrected\" or \"classical\"");
+    }
+    if ((v = json_object_get(e, "symmetry_number")) != NULL) {
+        if ((st = get_int(c, v, "symmetry_number", &i)) != MOLQ_OK)
+            return st;
+        molq_spec_set_symmetry_number(s, i);
+    }
+    if ((v = json_object_get(e, "rotational_constants")) != NULL) {
+        double b[3];
+        size_t k;
+        json_t *item;
+        if (!json_is_array(v))
+            return key_error(c, MOLQ_ETYPE, "rotational_constants",
+                             "expected an array of numbers");
+        if (json_array_size(v) > 3)
+            return key_error(c, MOLQ_EVALUE, "rotational_constants",
+                             "at most 3 values (A, B, C)");
+        json_array_foreach(v, k, item) {
+            if ((st = get_number(c, item, "rotational_constants", &b[k])) !=
+                MOLQ_OK)
+                return st;
+        }
+        molq_spec_set_rotational_constants(s, b, json_array_size(v));
+    }
+    if ((v = json_object_get(e, "vibrations")) != NULL &&
+        (st = read_pairs(c, s, v, "vibrations", "wavenumber",
+                         molq_spec_add_vibration)) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(e, "electronic_levels")) != NULL &&
+        (st = read_pairs(c, s, v, "electronic_levels", "energy",
+                         molq_spec_add_electronic_level)) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(e, "formation_enthalpy_298")) != NULL) {
+        if ((st = get_number(c, v, "formation_enthalpy_298", &x)) != MOLQ_OK)
+            return st;
+        molq_spec_set_formation_enthalpy(s, x);
+    }
+    return MOLQ_OK;
+}
+
+void molq_specs_free(molq_spec **specs, size_t n)
+{
+    size_t i;
+    if (specs == NULL)
+        return;
+    for (i = 0; i < n; i++)
+        molq_spec_free(specs[i]);
+    free(specs);
+}
+
+static const char *const top_keys[] = {"schema_version", "description",
+                                       "species", NULL};
+
+static molq_status read_root(ctx *c, json_t *root, molq_spec **specs,
+                             size_t *n)
+{
+    json_t *list, *v, *e;
+    size_t i;
+    molq_status st;
+    if (!json_is_object(root))
+        return key_error(c, MOLQ_ETYPE, "(top level)",
+                         "expected an object {\"species\": [...]}");
+    if ((st = check_keys(c, root, top_keys, "")) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(root, "schema_version")) != NULL) {
+        int ver;
+        if ((st = get_int(c, v, "schema_version", &ver)) != MOLQ_OK)
+            return st;
+        if (ver != SCHEMA_VERSION)
+            return key_error(c, MOLQ_EVALUE, "schema_version",
+                             "this library reads schema version 1");
+    }
+    list = json_object_get(root, "species");
+    if (list == NULL)
+        return key_error(c, MOLQ_EKEY, "species", "missing");
+    if (!json_is_array(list))
+        return key_error(c, MOLQ_ETYPE, "species", "expected an array");
+    json_array_foreach(list, i, e) {
+        json_t *name;
+        const char *text;
+        snprintf(c->who, sizeof c->who, "species #%zu", i + 1);
+        if (!json_is_object(e))
+            return key_error(c, MOLQ_ETYPE, "(entry)", "expected an object");
+        name = json_object_get(e, "name");
+        if (name == NULL)
+            return key_error(c, MOLQ_EKEY, "name", "missing");
+        if ((st = get_string(c, name, "name", &text)) != MOLQ_OK)
+            return st;
+        snprintf(c->who, sizeof c->who, "species '%.255s'", text);
+        if ((st = molq_spec_new(text, &specs[i])) != MOLQ_OK)
+            return st;
+        *n = i + 1;
+        if ((st = read_entry(c, e, specs[i])) != MOLQ_OK)
+            return st;
+    }
+    return MOLQ_OK;
+}
+
+molq_status molq_json_read_specs(const char *text, size_t len,
+                                 molq_spec ***specs_out, size_t *n_out,
+                                 char *err, size_t errlen)
+{
+    json_error_t jerr;
+    json_t *root, *list;
+    molq_spec **specs = NULL;
+    size_t n = 0, count = 0;
+    molq_status st;
+    ctx c;
+    c.err = err;
+    c.errlen = errlen;
+    snprintf(c.who, sizeof c.who, "species file");
+
+    if (len > MOLQ_MAX_FILE_BYTES) {
+        molq_errf(err, errlen, "species file: %zu bytes is over the limit of "
+                  "%u", len, MOLQ_MAX_FILE_BYTES);
+        return MOLQ_ELIMIT;
+    }
+    root = json_loadb(text, len, JSON_REJECT_DUPLICATES, &jerr);
+    if (root == NULL) {
+        molq_errf(err, errlen, "species file: line %d, column %d: %s",
+                  jerr.line, jerr.column, jerr.text);
+        return MOLQ_ESYNTAX;
+    }
+    list = json_is_object(root) ? json_object_get(root, "species") : NULL;
+    if (json_is_array(list))
+        count = json_array_size(list);
+    if (count > MOLQ_MAX_SPECIES) {
+        json_decref(root);
+        molq_errf(err, errlen, "species file: %zu species is over the limit "
+                  "of %d", count, MOLQ_MAX_SPECIES);
+        return MOLQ_ELIMIT;
+    }
+    if (count > 0 && (specs = calloc(count, sizeof *specs)) == NULL) {
+        json_decref(root);
+        return MOLQ_ENOMEM;
+    }
+    st = read_root(&c, root, specs, &n);
+    json_decref(root);
+    if (st != MOLQ_OK) {
+        molq_specs_free(specs, n);
+        return st;
+    }
+    *specs_out = specs;
+    *n_out = n;
+    return MOLQ_OK;
+}

@@ -1,0 +1,51 @@
+/* data/spec.h -- a species description as read from a file or filled
+ * through the public molq_spec_* setters, before validation.  Units are
+ * those of the public API (kg/mol, cm^-1, J/mol). */
+#ifndef MOLQ_DATA_SPEC_H
+#define MOLQ_DATA_SPEC_H
+
+#include <stddef.h>
+
+#include "molq/molq.h"
+
+/* Size limits (documented in the README, enforced with MOLQ_ELIMIT). */
+#define MOLQ_MAX_NAME 255
+#define MOLQ_MAX_VIBRATIONS 1000
+#define MOLQ_MAX_LEVELS 10000
+#define MOLQ_MAX_SPECIES 100000
+#define MOLQ_MAX_FILE_BYTES (64u * 1024u * 1024u)
+
+struct molq_spec_s {
+    char *name;
+    char *formula; /* NULL when not given */
+    char *source;  /* NULL when not given */
+    double molar_mass; /* kg/mol */
+    int has_molar_mass;
+    int structure; /* molq_structure, stored as int to validate */
+    int sigma;
+    double rot[3];
+    size_t nrot;
+    int rotor; /* molq_rotor */
+    double *vib_wn;
+    int *vib_deg;
+    size_t nvib, cap_vib;
+    double *el_e;
+    int *el_g;
+    size_t nel, cap_el;
+    double formation_enthalpy;
+    int has_formation_enthalpy;
+};
+
+/* Check every field; on success *molar_mass receives the molar mass to use
+ * (set, or computed from the formula), kg/mol.  Messages name the species
+ * and the field with the key names of the species file. */
+molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
+                               char *err, size_t errlen);
+
+/* Molar mass in kg/mol from a formula such as "CO2", "CH3OH", "Ca(OH)2",
+ * using IUPAC standard atomic weights.  MOLQ_EVALUE with a message on an
+ * unknown element or malformed formula. */
+molq_status molq_formula_molar_mass(const char *formula, double *out,
+                                    char *err, size_t errlen);
+
+#endif

@@ -1,0 +1,103 @@
+/* Rigid rotation of linear and nonlinear molecules.
+ *
+ * Classical rotor:   linear    q = T / (sigma theta)
+ *                    nonlinear q = sqrt(pi T^3 / (tA tB tC)) / sigma
+ * Corrected rotor:   linear: Mulholland's expansion of the rigid-rotor sum,
+ *                      q = T/(sigma theta) [1 + y/3 + y^2/15 + 4 y^3/315],
+ *                      y = theta/T, used for y <= LINEAR_SERIES_MAX where the
+ *                      omitted y^4/315 term is below 2e-8 relative; below
+ *                      that temperature the exact sum
+ *                      sum (2J+1) exp(-J(J+1) y) / sigma.
+ *                    nonlinear: classical top times (1 + c/T), the first
+ *                      quantum correction of the rigid asymmetric top,
+ *                      c = [2(tA+tB+tC) - tA tB/tC - tB tC/tA - tA tC/tB]/12,
+ *                      valid for T >= tA (error in q below 0.3 % there,
+ *                      falling as (tA/T)^2).
+ */
+#include <math.h>
+
+#include "core/constants.h"
+#include "modes/modes.h"
+
+#define LINEAR_SERIES_MAX 0.05
+#define LINEAR_SUM_CUTOFF 60.0 /* stop at J(J+1) y > 60: terms < 1e-24 */
+
+static const double linear_series[3] = {1.0 / 3.0, 1.0 / 15.0, 4.0 / 315.0};
+
+/* Exact spin-averaged rigid-rotor sum, raw moments of u = J(J+1) y. */
+static void linear_exact_sum(double y, double sigma, molq_cumulants *out)
+{
+    double q = 0.0, m1 = 0.0, m2 = 0.0, m3 = 0.0, mean, var;
+    unsigned J;
+    for (J = 0;; J++) {
+        double u = (double)J * (double)(J + 1) * y;
+        double w;
+        if (u > LINEAR_SUM_CUTOFF && J > 0)
+            break;
+        w = (2.0 * J + 1.0) * exp(-u);
+        q += w;
+        m1 += w * u;
+        m2 += w * u * u;
+        m3 += w * u * u * u;
+    }
+    mean = m1 / q;
+    var = m2 / q - mean * mean;
+    out->lnq = log(q / sigma);
+    out->k1 = mean;
+    out->k2 = var;
+    out->k3 = m3 / q - 3.0 * mean * (m2 / q) + 2.0 * mean * mean * mean;
+}
+
+static void eval_rotation(const molq_mode *m, double T, double p,
+                          unsigned need, molq_cumulants *out)
+{
+    const molq_rotation_params *r = &m->u.rot;
+    double a = r->linear ? 1.0 : 1.5;
+    (void)p;
+    if (r->linear && !r->classical && r->theta / T > LINEAR_SERIES_MAX) {
+        linear_exact_sum(r->theta / T, r->sigma, out);
+        return;
+    }
+    molq_cumulants_power(a, out);
+    out->lnq = (need & MOLQ_NEED_LNQ) ? r->lnq_const + a * log(T) : 0.0;
+    if (!r->classical) {
+        molq_cumulants c;
+        if (r->linear)
+            molq_cumulants_series(linear_series, 3, r->theta / T, &c);
+        else
+            molq_cumulants_series(&r->corr, 1, 1.0 / T, &c);
+        out->lnq += c.lnq;
+        out->k1 += c.k1;
+        out->k2 += c.k2;
+        out->k3 += c.k3;
+    }
+}
+
+void molq_mode_rotation_init(molq_mode *m, int linear, int classical,
+                             int sigma, const double *B, double *t_min)
+{
+    molq_rotation_params *r = &m->u.rot;
+    m->kind = MOLQ_MODE_ROTATION;
+    m->eval = eval_rotation;
+    r->linear = linear;
+    r->classical = classical;
+    r->sigma = (double)sigma;
+    *t_min = 0.0;
+    if (linear) {
+        r->theta = MOLQ_C2_CM_K * B[0];
+        r->lnq_const = -log(r->sigma * r->theta);
+        r->corr = 0.0;
+    } else {
+        double tA = MOLQ_C2_CM_K * B[0], tB = MOLQ_C2_CM_K * B[1],
+               tC = MOLQ_C2_CM_K * B[2];
+        r->theta = tA;
+        r->lnq_const = 0.5 * log(MOLQ_PI / (tA * tB * tC)) - log(r->sigma);
+        r->corr = (2.0 * (tA + tB + tC) - tA * tB / tC - tB * tC / tA -
+                   tA * tC / tB) /
+                  12.0;
+        /* Valid from tA up; also keep the factor 1 + c/T above 1/2 for
+         * unusual tops with c < 0. */
+        if (!classical)
+            *t_min = fmax(tA, -2.0 * r->corr);
+    }
+}

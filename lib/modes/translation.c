@@ -1,0 +1,25 @@
+/* Translation: q/N = (2 pi m k T / h^2)^{3/2} kT/p (Sackur-Tetrode). */
+#include <math.h>
+
+#include "core/constants.h"
+#include "modes/modes.h"
+
+static void eval_translation(const molq_mode *m, double T, double p,
+                             unsigned need, molq_cumulants *out)
+{
+    molq_cumulants_power(1.5, out); /* q ~ T^{3/2} at fixed volume */
+    out->lnq = (need & MOLQ_NEED_LNQ)
+                   ? m->u.tr.lnq_const + 2.5 * log(T) - log(p)
+                   : 0.0;
+}
+
+void molq_mode_translation_init(molq_mode *m, double molar_mass)
+{
+    double mass = molar_mass / MOLQ_N_AVOGADRO; /* kg per molecule */
+    m->kind = MOLQ_MODE_TRANSLATION;
+    m->eval = eval_translation;
+    m->u.tr.lnq_const =
+        1.5 * log(2.0 * MOLQ_PI * mass * MOLQ_K_BOLTZMANN /
+                  (MOLQ_H_PLANCK * MOLQ_H_PLANCK)) +
+        log(MOLQ_K_BOLTZMANN);
+}
