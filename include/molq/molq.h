@@ -185,10 +185,11 @@ typedef enum molq_structure {
 
 /* Rotation model of a linear or nonlinear molecule.  Added in 0.1.0.
  * MOLQ_ROTOR_CORRECTED (default): the rigid rotor with its quantum
- *   corrections.  Linear: the Mulholland expansion
- *   q = T/(sigma theta) [1 + theta/3T + theta^2/15T^2 + 4 theta^3/315T^3]
- *   for T >= 20 theta and the exact sum (2J+1) exp(-J(J+1) theta/T) / sigma
- *   below, so it is valid at every T (as a spin-averaged rigid rotor).
+ *   corrections.  Linear: the Mulholland expansion, y = theta/T,
+ *   q = T/(sigma theta) [1 + y/3 + y^2/15 + 4y^3/315 + y^4/315 + 4y^5/3465]
+ *   for T >= 20 theta (truncation below 1e-11 relative) and the exact sum
+ *   (2J+1) exp(-J(J+1) theta/T) / sigma below, so it is valid at every T
+ *   (as a spin-averaged rigid rotor: no ortho/para statistics).
  *   Nonlinear: the classical top times [1 + c/T] with the first quantum
  *   correction c = (2(tA+tB+tC) - tA tB/tC - tB tC/tA - tA tC/tB)/12 (t =
  *   rotational temperatures); relative error in q below 0.3 % at

@@ -1,0 +1,77 @@
+#include "testutil.h"
+
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+static molq_db *builtin;
+
+const molq_db *tu_builtin(void)
+{
+    if (builtin == NULL) {
+        char err[256];
+        ck_assert_msg(molq_db_builtin(&builtin, err, sizeof err) == MOLQ_OK,
+                      "builtin: %s", err);
+    }
+    return builtin;
+}
+
+const molq_species *tu_species(const char *name)
+{
+    const molq_species *sp = NULL;
+    ck_assert_int_eq(molq_db_find(tu_builtin(), name, &sp), MOLQ_OK);
+    return sp;
+}
+
+double tu_eval(const molq_species *sp, double T, double p, molq_property prop)
+{
+    double v = NAN;
+    molq_status st = molq_eval(sp, T, p, prop, &v);
+    ck_assert_msg(st == MOLQ_OK, "%s at T=%g: %s", molq_species_name(sp), T,
+                  molq_status_string(st));
+    ck_assert_msg(isfinite(v), "%s %s at T=%g is not finite",
+                  molq_species_name(sp), molq_property_name(prop), T);
+    return v;
+}
+
+const molq_species *tu_from_json(const char *json, molq_db **db)
+{
+    char err[512];
+    molq_status st = molq_db_read_string(json, strlen(json), db, err,
+                                         sizeof err);
+    ck_assert_msg(st == MOLQ_OK, "test species: %s", err);
+    return molq_db_species(*db, 0);
+}
+
+int tu_close(double a, double b, double rel, double floor)
+{
+    double scale = fmax(fmax(fabs(a), fabs(b)), floor);
+    return fabs(a - b) <= rel * scale;
+}
+
+void tu_read_janaf(const char *name, tu_table *t)
+{
+    const char *dir = getenv("MOLQ_TEST_DATA");
+    char path[1024], line[512];
+    FILE *f;
+    snprintf(path, sizeof path, "%s/janaf/%s.tsv", dir ? dir : "data", name);
+    f = fopen(path, "r");
+    ck_assert_msg(f != NULL, "cannot open %s", path);
+    t->n = 0;
+    while (fgets(line, sizeof line, f) != NULL) {
+        double T, cp, s, gef, dh;
+        if (line[0] == '#' || line[0] == 'T')
+            continue;
+        if (sscanf(line, "%lf %lf %lf %lf %lf", &T, &cp, &s, &gef, &dh) == 5 &&
+            t->n < 128) {
+            t->T[t->n] = T;
+            t->cp[t->n] = cp;
+            t->s[t->n] = s;
+            t->gef[t->n] = gef;
+            t->dh[t->n] = dh * 1e3;
+            t->n++;
+        }
+    }
+    fclose(f);
+    ck_assert_msg(t->n > 10, "%s: too few rows", path);
+}
