@@ -1,0 +1,1001 @@
+/* molq.c -- command-line tool: ideal-gas property tables from molecular
+ * constants, built on libmolq.
+ *
+ *   molq table SPECIES... [--data FILE] [--T LIST|START:STOP:STEP] [--p PA]
+ *                         [--format text|csv|json] [--per-mass]
+ *   molq modes SPECIES... [--data FILE] [--T ...] [--p PA] [--format ...]
+ *   molq list [--data FILE] [--format ...]
+ *   molq help | --help | --version
+ *
+ * Exit status: 0 success, 1 data or evaluation error, 2 usage error. */
+#include <errno.h>
+#include <jansson.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "molq/molq.h"
+
+#include "args.h"
+
+enum { EXIT_DATA = 1, EXIT_USAGE = 2 };
+enum { FMT_TEXT, FMT_CSV, FMT_JSON };
+enum { CMD_TABLE, CMD_MODES, CMD_LIST };
+
+static const char *const cmd_name[] = {"table", "modes", "list"};
+
+static const char help_text[] =
+    "molq -- ideal-gas thermodynamic properties from molecular constants\n"
+    "\n"
+    "Usage:\n"
+    "  molq table SPECIES... [--data FILE] [--T TEMPS] [--p PASCAL]\n"
+    "                        [--format text|csv|json] [--per-mass]\n"
+    "  molq modes SPECIES... [--data FILE] [--T TEMPS] [--p PASCAL]\n"
+    "                        [--format text|csv|json]\n"
+    "  molq list [--data FILE] [--format text|csv|json]\n"
+    "  molq help | molq --help | molq --version\n"
+    "\n"
+    "Commands:\n"
+    "  table   cp, cv, h, s, g, h_minus_h298, gef and dcp_dT of each SPECIES\n"
+    "          at each temperature, by statistical mechanics (translation,\n"
+    "          rigid rotation, harmonic vibration, electronic levels).\n"
+    "  modes   the contribution of each mode (translation, rotation,\n"
+    "          vibration, electronic) to ln q, u, cv and s, with the totals.\n"
+    "  list    the species available: name, formula, structure, molar mass,\n"
+    "          whether a formation enthalpy is given, and the data source.\n"
+    "\n"
+    "Options:\n"
+    "  --data FILE     also read species from FILE (JSON species file).\n"
+    "                  Names are looked up in FILE first, then in the\n"
+    "                  built-in starter set.\n"
+    "  --T TEMPS       temperatures in K: a comma-separated list such as\n"
+    "                  300,400,1000, or an inclusive range START:STOP:STEP\n"
+    "                  such as 300:3000:100.  Default:\n"
+    "                  298.15,300,400,500,600,800,1000,1500,2000,2500,3000\n"
+    "  --p PASCAL      pressure in Pa (default 100000, the standard state).\n"
+    "                  Only s, g and gef (and ln q) depend on it.\n"
+    "  --format F      text (aligned table, default), csv or json.\n"
+    "  --per-mass      (table) per kilogram instead of per mole.\n"
+    "  --              end of options; later words are species names.\n"
+    "  Options may also be written --name=value.\n"
+    "\n"
+    "Quantities and units (molar; with --per-mass 'mol' becomes 'kg'):\n"
+    "  T K;  cp, cv, s, gef J/(mol K);  h, g, h_minus_h298 J/mol;\n"
+    "  dcp_dT J/(mol K^2);  modes: lnq dimensionless, u J/mol.\n"
+    "  h(T) = dfH(298.15 K) + [H(T) - H(298.15 K)]; a species without a\n"
+    "  formation enthalpy gets dfH = 0.  g = h - T s.\n"
+    "  gef = -(g - h(298.15 K))/T.  s is the conventional entropy at p.\n"
+    "  In modes, u is a mode's thermal energy above its ground level.\n"
+    "\n"
+    "Output formats:\n"
+    "  csv   table header: species,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT\n"
+    "        modes header: species,T,mode,lnq,u,cv,s\n"
+    "        numbers with 12 significant digits.\n"
+    "  json  {\"units\": {...}, \"pressure\": p, \"basis\": ...,\n"
+    "         \"species\": [{\"name\": ..., \"rows\": [{\"T\": ..., ...}]}]}\n"
+    "        numbers with 17 significant digits (exact round trip).\n"
+    "\n"
+    "Exit status: 0 success, 1 data or evaluation error, 2 usage error.\n"
+    "\n"
+    "CAUTION: molq gives ideal-gas estimates. They are not a basis for the\n"
+    "design of pressure equipment, burners or safety systems without\n"
+    "verification under the applicable codes and licensed engineering\n"
+    "review.\n";
+
+static const double default_T[] = {298.15, 300,  400,  500,  600, 800,
+                                   1000,   1500, 2000, 2500, 3000};
+
+/* Properties of `molq table`, in column order. */
+static const molq_property table_props[] = {
+    MOLQ_CP, MOLQ_CV, MOLQ_H, MOLQ_S, MOLQ_G, MOLQ_H_MINUS_H298, MOLQ_GEF,
+    MOLQ_DCP_DT};
+#define N_TABLE (sizeof table_props / sizeof table_props[0])
+
+/* Per-mode properties of `molq modes`, in column order. */
+static const molq_property mode_props[] = {MOLQ_LNQ, MOLQ_U, MOLQ_CV, MOLQ_S};
+#define N_MODE (sizeof mode_props / sizeof mode_props[0])
+static const char *const mode_units[N_MODE] = {"1", "J/mol", "J/(mol K)",
+                                               "J/(mol K)"};
+
+/* ------------------------------------------------------------------------ */
+/* Options                                                                  */
+/* ------------------------------------------------------------------------ */
+
+enum { OPT_DATA, OPT_T, OPT_P, OPT_FORMAT, OPT_PER_MASS, N_OPTS };
+
+static const struct {
+    const char *name;
+    int takes_value;
+    unsigned commands; /* bit i set: accepted by command i */
+} opt_table[N_OPTS] = {
+    {"--data", 1, 7u},
+    {"--T", 1, 3u},
+    {"--p", 1, 3u},
+    {"--format", 1, 7u},
+    {"--per-mass", 0, 1u},
+};
+
+typedef struct options {
+    int cmd;
+    const char *data_path;
+    double *T; /* malloc'ed when given, else points at default_T */
+    size_t nT;
+    int T_owned;
+    double p;
+    int format;
+    int per_mass;
+    const char **names; /* species names (borrowed from argv) */
+    size_t nnames;
+    int help;
+} options;
+
+static void usage_error(const char *fmt, const char *a, const char *b)
+{
+    fputs("molq: ", stderr);
+    fprintf(stderr, fmt, a, b);
+    fputs("\nmolq: run 'molq --help' for usage\n", stderr);
+}
+
+/* Parse the arguments after the command word.  @return 0 or EXIT_USAGE. */
+static int parse_options(int cmd, int argc, char **argv, options *o)
+{
+    int given[N_OPTS] = {0};
+    int i, only_names = 0;
+    char msg[512];
+
+    o->names = malloc((size_t)(argc > 0 ? argc : 1) * sizeof *o->names);
+    if (o->names == NULL) {
+        fputs("molq: out of memory\n", stderr);
+        return EXIT_DATA;
+    }
+    for (i = 0; i < argc; i++) {
+        const char *arg = argv[i], *eq, *value = NULL;
+        size_t len;
+        int k;
+        if (only_names || arg[0] != '-' || arg[1] == '\0') {
+            if (cmd == CMD_LIST) {
+                usage_error("'molq list' takes no species names (got '%s')%s",
+                            arg, "");
+                return EXIT_USAGE;
+            }
+            o->names[o->nnames++] = arg;
+            continue;
+        }
+        if (strcmp(arg, "--") == 0) {
+            only_names = 1;
+            continue;
+        }
+        if (strcmp(arg, "--help") == 0 || strcmp(arg, "-h") == 0) {
+            o->help = 1;
+            continue;
+        }
+        eq = strchr(arg, '=');
+        len = eq ? (size_t)(eq - arg) : strlen(arg);
+        for (k = 0; k < N_OPTS; k++)
+            if (strlen(opt_table[k].name) == len &&
+                strncmp(opt_table[k].name, arg, len) == 0)
+                break;
+        if (k == N_OPTS) {
+            usage_error("unknown option '%s' for 'molq %s'", arg,
+                        cmd_name[cmd]);
+            return EXIT_USAGE;
+        }
+        if (!(opt_table[k].commands & (1u << cmd))) {
+            usage_error("option %s does not apply to 'molq %s'",
+                        opt_table[k].name, cmd_name[cmd]);
+            return EXIT_USAGE;
+        }
+        if (given[k]) {
+            usage_error("option %s given more than once%s", opt_table[k].name,
+                        "");
+            return EXIT_USAGE;
+        }
+        given[k] = 1;
+        if (opt_table[k].takes_value) {
+            if (eq != NULL)
+                value = eq + 1;
+            else if (i + 1 < argc)
+                value = argv[++i];
+            else {
+                usage_error("option %s needs a value%s", opt_table[k].name,
+                            "");
+                return EXIT_USAGE;
+            }
+        } else if (eq != NULL) {
+            usage_error("option %s takes no value (got '%s')",
+                        opt_table[k].name, arg);
+            return EXIT_USAGE;
+        }
+        switch (k) {
+        case OPT_DATA:
+            if (value[0] == '\0') {
+                usage_error("option --data: empty file name%s%s", "", "");
+                return EXIT_USAGE;
+            }
+            o->data_path = value;
+            break;
+        case OPT_T:
+            if (cli_parse_temperatures("--T", value, &o->T, &o->nT, msg,
+                                       sizeof msg) != 0) {
+                usage_error("%s%s", msg, "");
+                return EXIT_USAGE;
+            }
+            o->T_owned = 1;
+            break;
+        case OPT_P:
+            if (cli_parse_positive("--p", value, &o->p, msg, sizeof msg) !=
+                0) {
+                usage_error("%s%s", msg, "");
+                return EXIT_USAGE;
+            }
+            break;
+        case OPT_FORMAT:
+            if (strcmp(value, "text") == 0)
+                o->format = FMT_TEXT;
+            else if (strcmp(value, "csv") == 0)
+                o->format = FMT_CSV;
+            else if (strcmp(value, "json") == 0)
+                o->format = FMT_JSON;
+            else {
+                usage_error("option --format: unknown format '%s' (use "
+                            "text, csv or json)%s", value, "");
+                return EXIT_USAGE;
+            }
+            break;
+        case OPT_PER_MASS:
+            o->per_mass = 1;
+            break;
+        }
+    }
+    if (!o->help && cmd != CMD_LIST && o->nnames == 0) {
+        usage_error("'molq %s' needs at least one species name%s",
+                    cmd_name[cmd], "");
+        return EXIT_USAGE;
+    }
+    return 0;
+}
+
+/* ------------------------------------------------------------------------ */
+/* Species sets                                                             */
+/* ------------------------------------------------------------------------ */
+
+typedef struct sets {
+    const char *path; /* --data FILE or NULL */
+    molq_db *user;    /* species of FILE, or NULL */
+    molq_db *builtin;
+} sets;
+
+/* Print the line `line` of file `path` (1-based), shortened around
+ * column `col`, to help find a syntax error. */
+static void show_file_line(const char *path, long line, long col)
+{
+    FILE *f = fopen(path, "rb");
+    long cur = 1, pos = 0;
+    int ch;
+    char buf[121];
+    size_t n = 0;
+    long start;
+    if (f == NULL || line < 1)
+        goto done;
+    start = col > 80 ? col - 80 : 0; /* keep the 80 bytes before col */
+    while (cur < line && (ch = getc(f)) != EOF)
+        if (ch == '\n')
+            cur++;
+    if (cur != line)
+        goto done;
+    while ((ch = getc(f)) != EOF && ch != '\n' && ch != '\r') {
+        if (pos++ < start)
+            continue;
+        if (n < sizeof buf - 1)
+            buf[n++] = (ch == '\t') ? ' ' : (char)ch;
+    }
+    buf[n] = '\0';
+    fprintf(stderr, "molq: line %ld reads: %s%s%s\n", line,
+            start > 0 ? "..." : "", buf,
+            (long)n + start < pos ? "..." : "");
+done:
+    if (f != NULL)
+        fclose(f);
+}
+
+/* @return 0 or EXIT_DATA (message printed). */
+static int load_sets(const char *path, sets *s)
+{
+    char err[1024];
+    molq_status st;
+    s->path = path;
+    st = molq_db_builtin(&s->builtin, err, sizeof err);
+    if (st != MOLQ_OK) {
+        fprintf(stderr, "molq: built-in species set: %s (%s)\n", err,
+                molq_status_string(st));
+        return EXIT_DATA;
+    }
+    if (path == NULL)
+        return 0;
+    st = molq_db_read_file(path, &s->user, err, sizeof err);
+    if (st != MOLQ_OK) {
+        long line, col;
+        const char *at = strstr(err, "line ");
+        fprintf(stderr, "molq: species file '%s': %s (%s)\n", path, err,
+                molq_status_string(st));
+        if (st == MOLQ_EIO) {
+            FILE *f;
+            errno = 0;
+            f = fopen(path, "rb");
+            if (f == NULL && errno != 0)
+                fprintf(stderr, "molq: %s: %s\n", path, strerror(errno));
+            if (f != NULL)
+                fclose(f);
+        }
+        if (st == MOLQ_ESYNTAX && at != NULL &&
+            sscanf(at, "line %ld, column %ld", &line, &col) == 2)
+            show_file_line(path, line, col);
+        return EXIT_DATA;
+    }
+    return 0;
+}
+
+static void free_sets(sets *s)
+{
+    molq_db_free(s->user);
+    molq_db_free(s->builtin);
+}
+
+/* Look `name` up: --data file first, then the built-in set.  @return the
+ * species (borrowed) or NULL after printing an error. */
+static const molq_species *find_species(const sets *s, const char *name)
+{
+    const molq_species *sp;
+    size_t i, n;
+    if (s->user != NULL && molq_db_find(s->user, name, &sp) == MOLQ_OK)
+        return sp;
+    if (molq_db_find(s->builtin, name, &sp) == MOLQ_OK)
+        return sp;
+    fprintf(stderr, "molq: unknown species '%s': looked in ", name);
+    if (s->path != NULL)
+        fprintf(stderr, "species file '%s' (%zu species) and ", s->path,
+                molq_db_count(s->user));
+    fputs("the built-in set (", stderr);
+    n = molq_db_count(s->builtin);
+    for (i = 0; i < n; i++)
+        fprintf(stderr, "%s%s", i ? ", " : "",
+                molq_species_name(molq_db_species(s->builtin, i)));
+    fputs("); names are case-sensitive; 'molq list' shows them all\n", stderr);
+    return NULL;
+}
+
+/* Structure, inferred from the modes: no rotation -> atom; otherwise the
+ * high-temperature rotational heat capacity relative to the translational
+ * one (2/3 for a linear rotor, 1 for a nonlinear one). */
+static const char *structure_of(const molq_species *sp)
+{
+    size_t i, n = molq_species_mode_count(sp), rot = n, tr = n;
+    double cv_rot, cv_tr;
+    for (i = 0; i < n; i++) {
+        molq_mode_kind k;
+        if (molq_species_mode_kind(sp, i, &k) != MOLQ_OK)
+            continue;
+        if (k == MOLQ_MODE_ROTATION)
+            rot = i;
+        else if (k == MOLQ_MODE_TRANSLATION)
+            tr = i;
+    }
+    if (rot == n)
+        return "atom";
+    if (tr == n ||
+        molq_eval_mode(sp, rot, 1e7, MOLQ_P_STANDARD, MOLQ_CV, &cv_rot) !=
+            MOLQ_OK ||
+        molq_eval_mode(sp, tr, 1e7, MOLQ_P_STANDARD, MOLQ_CV, &cv_tr) !=
+            MOLQ_OK)
+        return "molecule";
+    return cv_rot / cv_tr < 0.83 ? "linear" : "nonlinear";
+}
+
+/* ------------------------------------------------------------------------ */
+/* Output helpers                                                           */
+/* ------------------------------------------------------------------------ */
+
+/* Write a CSV field, quoted when it holds a comma, quote or line break. */
+static void csv_field(const char *s)
+{
+    if (strpbrk(s, ",\"\r\n") == NULL) {
+        fputs(s, stdout);
+        return;
+    }
+    putchar('"');
+    for (; *s != '\0'; s++) {
+        if (*s == '"')
+            putchar('"');
+        putchar(*s);
+    }
+    putchar('"');
+}
+
+/* Unit of a table property on the chosen basis ("mol" -> "kg"). */
+static void unit_of(molq_property prop, int per_mass, char *buf, size_t len)
+{
+    const char *u = molq_property_unit(prop), *m;
+    if (!per_mass || (m = strstr(u, "mol")) == NULL) {
+        snprintf(buf, len, "%s", u);
+        return;
+    }
+    snprintf(buf, len, "%.*skg%s", (int)(m - u), u, m + 3);
+}
+
+/* Build-time helper for jansson: record allocation failures. */
+typedef struct jctx {
+    int failed;
+} jctx;
+
+static json_t *jcheck(jctx *j, json_t *v)
+{
+    if (v == NULL)
+        j->failed = 1;
+    return v;
+}
+
+static void jset(jctx *j, json_t *obj, const char *key, json_t *v)
+{
+    if (obj == NULL || v == NULL || json_object_set_new(obj, key, v) != 0) {
+        j->failed = 1;
+        json_decref(v);
+    }
+}
+
+static void jappend(jctx *j, json_t *arr, json_t *v)
+{
+    if (arr == NULL || v == NULL || json_array_append_new(arr, v) != 0) {
+        j->failed = 1;
+        json_decref(v);
+    }
+}
+
+/* Dump `root` to stdout.  @return 0 or EXIT_DATA. */
+static int json_finish(jctx *j, json_t *root)
+{
+    int rc = 0;
+    if (j->failed || root == NULL) {
+        fputs("molq: out of memory while building JSON output\n", stderr);
+        rc = EXIT_DATA;
+    } else if (json_dumpf(root, stdout, JSON_INDENT(2) | JSON_PRESERVE_ORDER |
+                                            JSON_REAL_PRECISION(17)) != 0) {
+        fputs("molq: cannot write JSON output\n", stderr);
+        rc = EXIT_DATA;
+    } else {
+        putchar('\n');
+    }
+    json_decref(root);
+    return rc;
+}
+
+static void eval_error(const molq_species *sp, double T, double p,
+                       molq_status st)
+{
+    fprintf(stderr, "molq: species '%s' at T = %.12g K, p = %.12g Pa: %s",
+            molq_species_name(sp), T, p, molq_status_string(st));
+    if (st == MOLQ_ERANGE)
+        fprintf(stderr, " (its models are valid from T = %.12g K up)",
+                molq_species_t_min(sp));
+    fputc('\n', stderr);
+}
+
+static double min_of(const double *x, size_t n)
+{
+    double m = x[0];
+    size_t i;
+    for (i = 1; i < n; i++)
+        if (x[i] < m)
+            m = x[i];
+    return m;
+}
+
+/* ------------------------------------------------------------------------ */
+/* molq table                                                               */
+/* ------------------------------------------------------------------------ */
+
+static molq_status table_row(const molq_species *sp, double T, double p,
+                             int per_mass, double *out)
+{
+    size_t k;
+    molq_status st;
+    if (!per_mass)
+        return molq_eval_many(sp, T, p, table_props, N_TABLE, out);
+    for (k = 0; k < N_TABLE; k++)
+        if ((st = molq_eval_per_mass(sp, T, p, table_props[k], &out[k])) !=
+            MOLQ_OK)
+            return st;
+    return MOLQ_OK;
+}
+
+#define TW 14 /* text column width */
+
+static void text_species_title(const molq_species *sp)
+{
+    const char *f = molq_species_formula(sp);
+    printf("%s  (%s%s%s%.10g g/mol, %s)\n", molq_species_name(sp),
+           f[0] ? "formula " : "", f, f[0] ? ", " : "",
+           molq_species_molar_mass(sp) * 1e3,
+           molq_species_has_formation_enthalpy(sp)
+               ? "h includes the formation enthalpy at 298.15 K"
+               : "no formation enthalpy: h = h(T) - h(298.15 K)");
+}
+
+static int cmd_table(const options *o, const molq_species **sp, size_t nsp)
+{
+    double v[N_TABLE];
+    size_t i, t, k;
+    molq_status st;
+    char unit[32];
+    double Tmin = min_of(o->T, o->nT);
+
+    /* Evaluate each species at the lowest T first so that a species outside
+     * its range fails before any output is written. */
+    for (i = 0; i < nsp; i++)
+        if ((st = table_row(sp[i], Tmin, o->p, o->per_mass, v)) != MOLQ_OK) {
+            eval_error(sp[i], Tmin, o->p, st);
+            return EXIT_DATA;
+        }
+
+    if (o->format == FMT_JSON) {
+        jctx j = {0};
+        json_t *root = jcheck(&j, json_object());
+        json_t *units = jcheck(&j, json_object()), *list;
+        jset(&j, units, "T", json_string("K"));
+        for (k = 0; k < N_TABLE; k++) {
+            unit_of(table_props[k], o->per_mass, unit, sizeof unit);
+            jset(&j, units, molq_property_name(table_props[k]),
+                 json_string(unit));
+        }
+        jset(&j, units, "pressure", json_string("Pa"));
+        jset(&j, units, "molar_mass", json_string("g/mol"));
+        jset(&j, root, "units", units);
+        jset(&j, root, "pressure", json_real(o->p));
+        jset(&j, root, "basis", json_string(o->per_mass ? "mass" : "molar"));
+        list = jcheck(&j, json_array());
+        jset(&j, root, "species", list);
+        for (i = 0; i < nsp && !j.failed; i++) {
+            json_t *e = jcheck(&j, json_object()), *rows;
+            jappend(&j, list, e);
+            jset(&j, e, "name", json_string(molq_species_name(sp[i])));
+            jset(&j, e, "formula", json_string(molq_species_formula(sp[i])));
+            jset(&j, e, "molar_mass",
+                 json_real(molq_species_molar_mass(sp[i]) * 1e3));
+            jset(&j, e, "has_formation_enthalpy",
+                 json_boolean(molq_species_has_formation_enthalpy(sp[i])));
+            rows = jcheck(&j, json_array());
+            jset(&j, e, "rows", rows);
+            for (t = 0; t < o->nT && !j.failed; t++) {
+                json_t *r;
+                if ((st = table_row(sp[i], o->T[t], o->p, o->per_mass, v)) !=
+                    MOLQ_OK) {
+                    eval_error(sp[i], o->T[t], o->p, st);
+                    json_decref(root);
+                    return EXIT_DATA;
+                }
+                r = jcheck(&j, json_object());
+                jappend(&j, rows, r);
+                jset(&j, r, "T", json_real(o->T[t]));
+                for (k = 0; k < N_TABLE; k++)
+                    jset(&j, r, molq_property_name(table_props[k]),
+                         json_real(v[k]));
+            }
+        }
+        return json_finish(&j, root);
+    }
+
+    if (o->format == FMT_CSV) {
+        fputs("species,T", stdout);
+        for (k = 0; k < N_TABLE; k++)
+            printf(",%s", molq_property_name(table_props[k]));
+        putchar('\n');
+    } else {
+        printf("molq ideal-gas properties at p = %.10g Pa, per %s\n", o->p,
+               o->per_mass ? "kilogram" : "mole");
+    }
+    for (i = 0; i < nsp; i++) {
+        if (o->format == FMT_TEXT) {
+            putchar('\n');
+            text_species_title(sp[i]);
+            printf("%*s", TW, "T");
+            for (k = 0; k < N_TABLE; k++)
+                printf("%*s", TW, molq_property_name(table_props[k]));
+            printf("\n%*s", TW, "K");
+            for (k = 0; k < N_TABLE; k++) {
+                unit_of(table_props[k], o->per_mass, unit, sizeof unit);
+                printf("%*s", TW, unit);
+            }
+            putchar('\n');
+        }
+        for (t = 0; t < o->nT; t++) {
+            if ((st = table_row(sp[i], o->T[t], o->p, o->per_mass, v)) !=
+                MOLQ_OK) {
+                fflush(stdout);
+                eval_error(sp[i], o->T[t], o->p, st);
+                return EXIT_DATA;
+            }
+            if (o->format == FMT_CSV) {
+                csv_field(molq_species_name(sp[i]));
+                printf(",%.12g", o->T[t]);
+                for (k = 0; k < N_TABLE; k++)
+                    printf(",%.12g", v[k]);
+            } else {
+                printf("%*.8g", TW, o->T[t]);
+                for (k = 0; k < N_TABLE; k++)
+                    printf(" %*.7g", TW - 1, v[k]);
+            }
+            putchar('\n');
+        }
+    }
+    return 0;
+}
+
+/* ------------------------------------------------------------------------ */
+/* molq modes                                                               */
+/* ------------------------------------------------------------------------ */
+
+/* Mode contributions (nmodes x N_MODE, row-major) and the species totals
+ * (lnq, u = h - h(0) - RT, cv, s) at one state. */
+static molq_status modes_eval(const molq_species *sp, double T, double p,
+                              double *per_mode, double *total)
+{
+    static const molq_property tp[] = {MOLQ_LNQ, MOLQ_H_MINUS_H0, MOLQ_H,
+                                       MOLQ_U, MOLQ_CV, MOLQ_S};
+    double tv[6];
+    size_t m, k, n = molq_species_mode_count(sp);
+    molq_status st;
+    for (m = 0; m < n; m++)
+        for (k = 0; k < N_MODE; k++)
+            if ((st = molq_eval_mode(sp, m, T, p, mode_props[k],
+                                     &per_mode[m * N_MODE + k])) != MOLQ_OK)
+                return st;
+    if ((st = molq_eval_many(sp, T, p, tp, 6, tv)) != MOLQ_OK)
+        return st;
+    total[0] = tv[0];
+    total[1] = tv[1] - (tv[2] - tv[3]); /* h - h0 - RT, with RT = h - u */
+    total[2] = tv[4];
+    total[3] = tv[5];
+    return MOLQ_OK;
+}
+
+static const char *mode_name(const molq_species *sp, size_t m)
+{
+    molq_mode_kind kind;
+    const char *name;
+    if (molq_species_mode_kind(sp, m, &kind) != MOLQ_OK ||
+        (name = molq_mode_kind_name(kind)) == NULL)
+        return "mode";
+    return name;
+}
+
+static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
+{
+    size_t i, t, k, m, maxm = 0;
+    double *pm, total[N_MODE];
+    molq_status st;
+    int rc = 0;
+    double Tmin = min_of(o->T, o->nT);
+
+    for (i = 0; i < nsp; i++)
+        if (molq_species_mode_count(sp[i]) > maxm)
+            maxm = molq_species_mode_count(sp[i]);
+    pm = malloc((maxm + 1) * N_MODE * sizeof *pm);
+    if (pm == NULL) {
+        fputs("molq: out of memory\n", stderr);
+        return EXIT_DATA;
+    }
+    for (i = 0; i < nsp; i++)
+        if ((st = modes_eval(sp[i], Tmin, o->p, pm, total)) != MOLQ_OK) {
+            eval_error(sp[i], Tmin, o->p, st);
+            free(pm);
+            return EXIT_DATA;
+        }
+
+    if (o->format == FMT_JSON) {
+        jctx j = {0};
+        json_t *root = jcheck(&j, json_object());
+        json_t *units = jcheck(&j, json_object()), *list;
+        jset(&j, units, "T", json_string("K"));
+        for (k = 0; k < N_MODE; k++)
+            jset(&j, units, molq_property_name(mode_props[k]),
+                 json_string(mode_units[k]));
+        jset(&j, units, "pressure", json_string("Pa"));
+        jset(&j, root, "units", units);
+        jset(&j, root, "pressure", json_real(o->p));
+        list = jcheck(&j, json_array());
+        jset(&j, root, "species", list);
+        for (i = 0; i < nsp && !j.failed; i++) {
+            size_t nm = molq_species_mode_count(sp[i]);
+            json_t *e = jcheck(&j, json_object()), *rows, *names;
+            jappend(&j, list, e);
+            jset(&j, e, "name", json_string(molq_species_name(sp[i])));
+            names = jcheck(&j, json_array());
+            for (m = 0; m < nm; m++)
+                jappend(&j, names, json_string(mode_name(sp[i], m)));
+            jset(&j, e, "modes", names);
+            rows = jcheck(&j, json_array());
+            jset(&j, e, "rows", rows);
+            for (t = 0; t < o->nT && !j.failed; t++) {
+                json_t *r, *ml, *tot;
+                if ((st = modes_eval(sp[i], o->T[t], o->p, pm, total)) !=
+                    MOLQ_OK) {
+                    eval_error(sp[i], o->T[t], o->p, st);
+                    json_decref(root);
+                    free(pm);
+                    return EXIT_DATA;
+                }
+                r = jcheck(&j, json_object());
+                jappend(&j, rows, r);
+                jset(&j, r, "T", json_real(o->T[t]));
+                ml = jcheck(&j, json_array());
+                jset(&j, r, "modes", ml);
+                for (m = 0; m < nm; m++) {
+                    json_t *mo = jcheck(&j, json_object());
+                    jappend(&j, ml, mo);
+                    jset(&j, mo, "mode", json_string(mode_name(sp[i], m)));
+                    for (k = 0; k < N_MODE; k++)
+                        jset(&j, mo, molq_property_name(mode_props[k]),
+                             json_real(pm[m * N_MODE + k]));
+                }
+                tot = jcheck(&j, json_object());
+                jset(&j, r, "total", tot);
+                for (k = 0; k < N_MODE; k++)
+                    jset(&j, tot, molq_property_name(mode_props[k]),
+                         json_real(total[k]));
+            }
+        }
+        free(pm);
+        return json_finish(&j, root);
+    }
+
+    if (o->format == FMT_CSV)
+        puts("species,T,mode,lnq,u,cv,s");
+    else
+        printf("molq per-mode contributions at p = %.10g Pa, per mole "
+               "(u: thermal energy above the mode's ground level)\n",
+               o->p);
+    for (i = 0; i < nsp && rc == 0; i++) {
+        size_t nm = molq_species_mode_count(sp[i]);
+        if (o->format == FMT_TEXT) {
+            putchar('\n');
+            text_species_title(sp[i]);
+        }
+        for (t = 0; t < o->nT; t++) {
+            if ((st = modes_eval(sp[i], o->T[t], o->p, pm, total)) !=
+                MOLQ_OK) {
+                fflush(stdout);
+                eval_error(sp[i], o->T[t], o->p, st);
+                rc = EXIT_DATA;
+                break;
+            }
+            if (o->format == FMT_TEXT) {
+                printf("  T = %.10g K\n%*s", o->T[t], TW, "mode");
+                for (k = 0; k < N_MODE; k++)
+                    printf("%*s", TW, molq_property_name(mode_props[k]));
+                printf("\n%*s", TW, "");
+                for (k = 0; k < N_MODE; k++)
+                    printf("%*s", TW, mode_units[k]);
+                putchar('\n');
+            }
+            for (m = 0; m <= nm; m++) {
+                const char *name = m < nm ? mode_name(sp[i], m) : "total";
+                const double *v = m < nm ? &pm[m * N_MODE] : total;
+                if (o->format == FMT_CSV) {
+                    csv_field(molq_species_name(sp[i]));
+                    printf(",%.12g,%s", o->T[t], name);
+                    for (k = 0; k < N_MODE; k++)
+                        printf(",%.12g", v[k]);
+                } else {
+                    printf("%*s", TW, name);
+                    for (k = 0; k < N_MODE; k++)
+                        printf(" %*.7g", TW - 1, v[k]);
+                }
+                putchar('\n');
+            }
+        }
+    }
+    free(pm);
+    return rc;
+}
+
+/* ------------------------------------------------------------------------ */
+/* molq list                                                                */
+/* ------------------------------------------------------------------------ */
+
+typedef struct entry {
+    const molq_species *sp;
+    const char *set; /* "file", "built-in" or "built-in (hidden by file)" */
+} entry;
+
+static int cmd_list(const options *o, const sets *s)
+{
+    size_t nu = molq_db_count(s->user), nb = molq_db_count(s->builtin);
+    size_t n = 0, i, wn = 4, wf = 7, ws = 8;
+    entry *e = malloc((nu + nb) * sizeof *e);
+    const molq_species *dummy;
+    int rc = 0;
+    if (e == NULL) {
+        fputs("molq: out of memory\n", stderr);
+        return EXIT_DATA;
+    }
+    for (i = 0; i < nu; i++) {
+        e[n].sp = molq_db_species(s->user, i);
+        e[n++].set = "file";
+    }
+    for (i = 0; i < nb; i++) {
+        e[n].sp = molq_db_species(s->builtin, i);
+        e[n].set = (s->user != NULL &&
+                    molq_db_find(s->user, molq_species_name(e[n].sp),
+                                 &dummy) == MOLQ_OK)
+                       ? "built-in (hidden by file)"
+                       : "built-in";
+        n++;
+    }
+
+    if (o->format == FMT_JSON) {
+        jctx j = {0};
+        json_t *root = jcheck(&j, json_object()), *list;
+        json_t *units = jcheck(&j, json_object());
+        jset(&j, units, "molar_mass", json_string("g/mol"));
+        jset(&j, root, "units", units);
+        list = jcheck(&j, json_array());
+        jset(&j, root, "species", list);
+        for (i = 0; i < n && !j.failed; i++) {
+            json_t *x = jcheck(&j, json_object());
+            jappend(&j, list, x);
+            jset(&j, x, "name", json_string(molq_species_name(e[i].sp)));
+            jset(&j, x, "formula", json_string(molq_species_formula(e[i].sp)));
+            jset(&j, x, "structure", json_string(structure_of(e[i].sp)));
+            jset(&j, x, "molar_mass",
+                 json_real(molq_species_molar_mass(e[i].sp) * 1e3));
+            jset(&j, x, "has_formation_enthalpy",
+                 json_boolean(molq_species_has_formation_enthalpy(e[i].sp)));
+            jset(&j, x, "set", json_string(e[i].set));
+            jset(&j, x, "source", json_string(molq_species_source(e[i].sp)));
+        }
+        free(e);
+        return json_finish(&j, root);
+    }
+    if (o->format == FMT_CSV) {
+        puts("name,formula,structure,molar_mass,formation_enthalpy,set,"
+             "source");
+        for (i = 0; i < n; i++) {
+            csv_field(molq_species_name(e[i].sp));
+            putchar(',');
+            csv_field(molq_species_formula(e[i].sp));
+            printf(",%s,%.12g,%s,", structure_of(e[i].sp),
+                   molq_species_molar_mass(e[i].sp) * 1e3,
+                   molq_species_has_formation_enthalpy(e[i].sp) ? "yes"
+                                                                : "no");
+            csv_field(e[i].set);
+            putchar(',');
+            csv_field(molq_species_source(e[i].sp));
+            putchar('\n');
+        }
+        free(e);
+        return rc;
+    }
+    for (i = 0; i < n; i++) {
+        size_t a = strlen(molq_species_name(e[i].sp));
+        size_t b = strlen(molq_species_formula(e[i].sp));
+        size_t c = strlen(e[i].set);
+        wn = a > wn ? a : wn;
+        wf = b > wf ? b : wf;
+        ws = c > ws ? c : ws;
+    }
+    if (wn > 40)
+        wn = 40;
+    if (wf > 40)
+        wf = 40;
+    printf("%-*s  %-*s  %-9s  %12s  %-4s  %-*s  %s\n", (int)wn, "name",
+           (int)wf, "formula", "structure", "M g/mol", "dfH", (int)ws, "set",
+           "source");
+    for (i = 0; i < n; i++)
+        printf("%-*s  %-*s  %-9s  %12.8g  %-4s  %-*s  %s\n", (int)wn,
+               molq_species_name(e[i].sp), (int)wf,
+               molq_species_formula(e[i].sp), structure_of(e[i].sp),
+               molq_species_molar_mass(e[i].sp) * 1e3,
+               molq_species_has_formation_enthalpy(e[i].sp) ? "yes" : "no",
+               (int)ws, e[i].set, molq_species_source(e[i].sp));
+    if (s->path != NULL)
+        printf("\n'file' species come from %s; names are looked up there "
+               "first.\n", s->path);
+    free(e);
+    return rc;
+}
+
+/* ------------------------------------------------------------------------ */
+/* main                                                                     */
+/* ------------------------------------------------------------------------ */
+
+static int finish_output(int rc)
+{
+    if (fflush(stdout) != 0 || ferror(stdout)) {
+        fputs("molq: error writing the output\n", stderr);
+        return rc != 0 ? rc : EXIT_DATA;
+    }
+    return rc;
+}
+
+int main(int argc, char **argv)
+{
+    options o;
+    sets s = {NULL, NULL, NULL};
+    const molq_species **sp = NULL;
+    int cmd, rc;
+    size_t i;
+
+    if (argc < 2) {
+        fputs(help_text, stderr);
+        return EXIT_USAGE;
+    }
+    if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
+        strcmp(argv[1], "help") == 0) {
+        if (strcmp(argv[1], "help") == 0 && argc > 2 &&
+            strcmp(argv[2], "table") != 0 && strcmp(argv[2], "modes") != 0 &&
+            strcmp(argv[2], "list") != 0) {
+            usage_error("help: unknown command '%s'%s", argv[2], "");
+            return EXIT_USAGE;
+        }
+        fputs(help_text, stdout);
+        return finish_output(0);
+    }
+    if (strcmp(argv[1], "--version") == 0) {
+        printf("molq %s (libmolq %s)\n", MOLQ_VERSION_STRING,
+               molq_version_string());
+        return finish_output(0);
+    }
+    for (cmd = 0; cmd < 3; cmd++)
+        if (strcmp(argv[1], cmd_name[cmd]) == 0)
+            break;
+    if (cmd == 3) {
+        usage_error(argv[1][0] == '-' ? "unknown option '%s'%s"
+                                      : "unknown command '%s'%s (use table, "
+                                        "modes, list or help)",
+                    argv[1], "");
+        return EXIT_USAGE;
+    }
+
+    memset(&o, 0, sizeof o);
+    o.cmd = cmd;
+    o.p = MOLQ_P_STANDARD;
+    o.format = FMT_TEXT;
+    rc = parse_options(cmd, argc - 2, argv + 2, &o);
+    if (rc != 0)
+        goto out;
+    if (o.help) {
+        fputs(help_text, stdout);
+        rc = finish_output(0);
+        goto out;
+    }
+    if (!o.T_owned) {
+        o.T = (double *)default_T;
+        o.nT = sizeof default_T / sizeof default_T[0];
+    }
+    if ((rc = load_sets(o.data_path, &s)) != 0)
+        goto out;
+    if (cmd == CMD_LIST) {
+        rc = finish_output(cmd_list(&o, &s));
+        goto out;
+    }
+    sp = malloc(o.nnames * sizeof *sp);
+    if (sp == NULL) {
+        fputs("molq: out of memory\n", stderr);
+        rc = EXIT_DATA;
+        goto out;
+    }
+    for (i = 0; i < o.nnames; i++)
+        if ((sp[i] = find_species(&s, o.names[i])) == NULL) {
+            rc = EXIT_DATA;
+            goto out;
+        }
+    rc = cmd == CMD_TABLE ? cmd_table(&o, sp, o.nnames)
+                          : cmd_modes(&o, sp, o.nnames);
+    rc = finish_output(rc);
+out:
+    free(sp);
+    free(o.names);
+    if (o.T_owned)
+        free(o.T);
+    free_sets(&s);
+    return rc;
+}
