@@ -102,7 +102,10 @@ typedef enum molq_status {
     MOLQ_ENOTFOUND = 9,  /* no species of that name */
     MOLQ_EDOMAIN = 10,   /* T or p is not finite and positive */
     MOLQ_ERANGE = 11,    /* T is outside the validity range of a model the
-                            species uses (see molq_species_t_min) */
+                            species uses (see molq_species_t_min), or so
+                            extreme (say 1e-300 K) that a result would
+                            overflow a double.  MOLQ_OK always comes with
+                            finite numbers. */
     MOLQ_ELIMIT = 12     /* input exceeds a documented size limit */
 } molq_status;
 
@@ -329,7 +332,9 @@ MOLQ_API molq_status molq_eval(const molq_species *species, double T,
 
 /* Evaluate several properties at one state: out[i] receives props[i].
  * Cheaper than separate molq_eval calls (the partition function is summed
- * once).  @return as molq_eval; on failure out is untouched.  Added 0.1.0. */
+ * once).  @return as molq_eval; after MOLQ_EARG, MOLQ_EDOMAIN or a T below
+ * t_min out is untouched, after an overflow (MOLQ_ERANGE) its contents are
+ * unspecified.  Added in 0.1.0. */
 MOLQ_API molq_status molq_eval_many(const molq_species *species, double T,
                                     double p, const molq_property *props,
                                     size_t nprops, double *out);

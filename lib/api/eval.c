@@ -18,6 +18,17 @@ static molq_status check_state(const molq_species *sp, double T, double p)
     return MOLQ_OK;
 }
 
+/* MOLQ_OK promises finite numbers: a result that overflows a double (only
+ * at absurd temperatures such as 1e-300 K) is reported as out of range. */
+static molq_status check_finite(const double *v, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++)
+        if (!isfinite(v[i]))
+            return MOLQ_ERANGE;
+    return MOLQ_OK;
+}
+
 molq_status molq_eval_many(const molq_species *sp, double T, double p,
                            const molq_property *props, size_t nprops,
                            double *out)
@@ -32,13 +43,20 @@ molq_status molq_eval_many(const molq_species *sp, double T, double p,
     if ((st = check_state(sp, T, p)) != MOLQ_OK)
         return st;
     molq_thermo_eval(sp, T, p, props, nprops, out);
-    return MOLQ_OK;
+    return check_finite(out, nprops);
 }
 
 molq_status molq_eval(const molq_species *sp, double T, double p,
                       molq_property prop, double *out)
 {
-    return molq_eval_many(sp, T, p, &prop, 1, out);
+    double v;
+    molq_status st;
+    if (out == NULL)
+        return MOLQ_EARG;
+    st = molq_eval_many(sp, T, p, &prop, 1, &v);
+    if (st == MOLQ_OK)
+        *out = v;
+    return st;
 }
 
 molq_status molq_eval_batch(const molq_species *sp, molq_property prop,
@@ -55,6 +73,8 @@ molq_status molq_eval_batch(const molq_species *sp, molq_property prop,
         if (st != MOLQ_OK)
             return st;
         molq_thermo_eval(sp, t, p, &prop, 1, &out[i * out_stride]);
+        if ((st = check_finite(&out[i * out_stride], 1)) != MOLQ_OK)
+            return st;
     }
     return MOLQ_OK;
 }
@@ -81,6 +101,8 @@ molq_status molq_eval_mode(const molq_species *sp, size_t index, double T,
         return st;
     if (molq_thermo_mode(sp, index, T, p, prop, &v) != 0)
         return MOLQ_EARG;
+    if ((st = check_finite(&v, 1)) != MOLQ_OK)
+        return st;
     *out = v;
     return MOLQ_OK;
 }
