@@ -1,0 +1,248 @@
+"""Errors reach Python as MolqError / ValueError / KeyError, with the
+library's status and message; object lifetimes are safe."""
+
+import gc
+import math
+import os
+import pickle
+import tempfile
+import unittest
+import weakref
+
+import molq
+
+GOOD_ENTRY = ('{"name": "Qx", "molar_mass": 30.0, "structure": "linear", '
+              '"symmetry_number": %s, "rotational_constants": [1.5], '
+              '"vibrations": [{"wavenumber": 1800}]}')
+
+
+def species_text(*entries):
+    return '{"schema_version": 1, "species": [%s]}' % ", ".join(entries)
+
+
+class BadSpeciesText(unittest.TestCase):
+    def assertMolqError(self, status, fields, text):
+        with self.assertRaises(molq.MolqError) as cm:
+            molq.Database.from_string(text)
+        exc = cm.exception
+        self.assertEqual(exc.status, status, exc.message)
+        self.assertEqual(exc.status_name, molq.STATUS_NAMES[status])
+        for word in fields:
+            self.assertIn(word, exc.message)
+        self.assertIn(exc.message, str(exc))
+        return exc
+
+    def test_symmetry_number_out_of_range(self):
+        self.assertMolqError(molq.EVALUE, ["Qx", "symmetry_number"],
+                             species_text(GOOD_ENTRY % "0"))
+
+    def test_wrong_type(self):
+        self.assertMolqError(molq.ETYPE, ["Qx", "symmetry_number"],
+                             species_text(GOOD_ENTRY % '"two"'))
+
+    def test_missing_structure(self):
+        self.assertMolqError(
+            molq.EKEY, ["Qy", "structure"],
+            species_text('{"name": "Qy", "molar_mass": 12.0}'))
+
+    def test_unknown_key(self):
+        self.assertMolqError(
+            molq.EKEY, ["Qy", "colour"],
+            species_text('{"name": "Qy", "molar_mass": 12.0, '
+                         '"structure": "atom", "colour": "blue"}'))
+
+    def test_syntax_error_gives_line(self):
+        exc = self.assertMolqError(molq.ESYNTAX, ["line"],
+                                   '{"species": [\n  {"name": "Qx",,}]}')
+        self.assertIn("line 2", exc.message)
+
+    def test_duplicate(self):
+        self.assertMolqError(molq.EDUPLICATE, ["Qx"],
+                             species_text(GOOD_ENTRY % "1",
+                                          GOOD_ENTRY % "2"))
+
+    def test_good_text_reads(self):
+        db = molq.Database.from_string(species_text(GOOD_ENTRY % "1"))
+        self.assertEqual(db.names(), ["Qx"])
+        self.assertEqual(db["Qx"].molar_mass, 30.0)
+
+    def test_missing_file(self):
+        with tempfile.TemporaryDirectory() as d:
+            path = os.path.join(d, "no-such-file.json")
+            with self.assertRaises(molq.MolqError) as cm:
+                molq.Database.from_file(path)
+            self.assertEqual(cm.exception.status, molq.EIO)
+
+    def test_from_file_reports_field(self):
+        with tempfile.TemporaryDirectory() as d:
+            path = os.path.join(d, "bad.json")
+            with open(path, "w") as f:
+                f.write(species_text(GOOD_ENTRY % "-3"))
+            with self.assertRaises(molq.MolqError) as cm:
+                molq.Database.from_file(path)
+            self.assertEqual(cm.exception.status, molq.EVALUE)
+            self.assertIn("symmetry_number", cm.exception.message)
+
+    def test_error_pickles(self):
+        exc = molq.MolqError(molq.EVALUE, "species 'Q': field 'x': bad")
+        back = pickle.loads(pickle.dumps(exc))
+        self.assertEqual((back.status, back.message, back.status_name),
+                         (exc.status, exc.message, "MOLQ_EVALUE"))
+
+
+class BadConstants(unittest.TestCase):
+    def test_negative_molar_mass(self):
+        with self.assertRaises(molq.MolqError) as cm:
+            molq.Species.from_constants("Qn", structure="atom",
+                                        molar_mass=-4.0)
+        self.assertEqual(cm.exception.status, molq.EVALUE)
+        self.assertIn("molar_mass", cm.exception.message)
+        self.assertIn("Qn", cm.exception.message)
+
+    def test_missing_rotational_constant(self):
+        with self.assertRaises(molq.MolqError) as cm:
+            molq.Species.from_constants("Qr", structure="linear",
+                                        molar_mass=20.0)
+        self.assertIn("rotational_constants", cm.exception.message)
+
+    def test_bad_vibration(self):
+        with self.assertRaises(molq.MolqError) as cm:
+            molq.Species.from_constants(
+                "Qv", structure="linear", molar_mass=20.0,
+                rotational_constants=[2.0], vibrations=[(-100.0, 1)])
+        self.assertIn("vibrations", cm.exception.message)
+
+    def test_python_side_errors(self):
+        with self.assertRaises(ValueError):
+            molq.Species.from_constants("Q", structure="bent",
+                                        molar_mass=20.0)
+        with self.assertRaises(ValueError):
+            molq.Species.from_constants("Q", structure="atom",
+                                        molar_mass=20.0, rotor="floppy")
+        with self.assertRaises(TypeError):
+            molq.Species.from_constants("Q", structure="linear",
+                                        molar_mass=20.0,
+                                        rotational_constants=[2.0],
+                                        vibrations=[(900.0, 1.5)])
+        with self.assertRaises(TypeError):
+            molq.Species.from_constants("Q", structure="atom",
+                                        molar_mass=20.0, symmetry_number=1.0)
+
+
+class BadStates(unittest.TestCase):
+    @classmethod
+    def setUpClass(cls):
+        cls.n2 = molq.Database.builtin()["N2"]
+
+    def assertDomain(self, T, p=1e5):
+        with self.assertRaises(molq.MolqError) as cm:
+            self.n2.cp(T, p)
+        self.assertEqual(cm.exception.status, molq.EDOMAIN)
+        self.assertEqual(cm.exception.status_name, "MOLQ_EDOMAIN")
+        self.assertIn("N2", cm.exception.message)
+
+    def test_bad_temperatures(self):
+        for T in (0.0, -1.0, -300, float("nan"), float("inf")):
+            self.assertDomain(T)
+
+    def test_bad_pressures(self):
+        for p in (0.0, -1e5, float("nan")):
+            self.assertDomain(300.0, p)
+
+    def test_bad_temperature_in_sequence(self):
+        with self.assertRaises(molq.MolqError) as cm:
+            self.n2.eval("h", [300.0, 400.0, -5.0, 500.0])
+        self.assertEqual(cm.exception.status, molq.EDOMAIN)
+        self.assertIn("-5", cm.exception.message)
+        with self.assertRaises(molq.MolqError):
+            self.n2.eval_per_mass("h", [300.0, math.nan])
+
+    def test_below_model_range(self):
+        h2o = molq.Database.builtin()["H2O"]
+        self.assertGreater(h2o.t_min, 0.0)
+        with self.assertRaises(molq.MolqError) as cm:
+            h2o.cp(0.5 * h2o.t_min)
+        self.assertEqual(cm.exception.status, molq.ERANGE)
+        h2o.cp(1.01 * h2o.t_min)   # just above is fine
+
+    def test_unknown_property(self):
+        for bad in ("Cp", "enthalpy", "", None, 1):
+            with self.assertRaises(ValueError):
+                self.n2.eval(bad, 300.0)
+        with self.assertRaises(ValueError):
+            self.n2.eval_many(["cp", "heat"], 300.0)
+        with self.assertRaises(ValueError):
+            molq.property_unit("heat")
+
+    def test_unknown_species(self):
+        db = molq.Database.builtin()
+        with self.assertRaises(KeyError):
+            db["Unobtainium"]
+        self.assertIsNone(db.get("Unobtainium"))
+        self.assertNotIn("Unobtainium", db)
+
+    def test_non_numeric(self):
+        with self.assertRaises(TypeError):
+            self.n2.cp("300")
+        with self.assertRaises(TypeError):
+            self.n2.cp(300.0, [1e5, 2e5])
+
+
+class Lifetimes(unittest.TestCase):
+    def test_species_outlives_del_db(self):
+        db = molq.Database.builtin()
+        ref = weakref.ref(db)
+        co2 = db["CO2"]
+        first = co2.s(1200.0)
+        del db
+        gc.collect()
+        self.assertIsNotNone(ref(), "the species must keep its database")
+        for _ in range(3):
+            junk = [molq.Database.builtin() for _ in range(5)]  # reuse heap
+            del junk
+        self.assertEqual(co2.s(1200.0), first)
+        self.assertEqual(co2.name, "CO2")
+        del co2
+        gc.collect()
+        self.assertIsNone(ref(), "database leaked after its last species")
+
+    def test_iteration_species_outlive_db(self):
+        species = list(molq.Database.builtin())
+        gc.collect()
+        self.assertEqual([sp.name for sp in species],
+                         ["Ar", "O", "H2", "N2", "O2", "CO", "CO2", "H2O"])
+
+    def test_close(self):
+        db = molq.Database.builtin()
+        n2 = db["N2"]
+        db.close()
+        db.close()   # idempotent
+        with self.assertRaises(ValueError):
+            n2.cp(300.0)
+        with self.assertRaises(ValueError):
+            len(db)
+        own = molq.Species.from_constants("Qc", structure="atom",
+                                          molar_mass=10.0)
+        with own:
+            own.cp(300.0)
+        with self.assertRaises(ValueError):
+            own.cp(300.0)
+
+    def test_owned_species_freed_repeatedly(self):
+        # Many create/collect cycles: a double free or use-after-free in
+        # the finalizer would crash or corrupt the values.
+        want = None
+        for i in range(2000):
+            sp = molq.Species.from_constants(
+                "Qloop", structure="linear", molar_mass=28.0,
+                rotational_constants=[1.9], vibrations=[2300.0])
+            value = sp.cp(700.0)
+            want = value if want is None else want
+            self.assertEqual(value, want)
+            if i % 2:
+                sp.close()
+            del sp
+
+
+if __name__ == "__main__":
+    unittest.main()
