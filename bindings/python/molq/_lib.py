@@ -29,9 +29,9 @@ _CHECKOUT = os.path.normpath(os.path.join(_PKG_DIR, os.pardir, os.pardir,
                                           os.pardir))
 
 
-def _candidates():
-    """Yield library paths or names to try, in search order."""
-    for path in sorted(glob.glob(os.path.join(_CHECKOUT, "build*", "lib",
+def _candidates(checkout=_CHECKOUT):
+    """Yield library paths or names to try after MOLQ_LIBRARY, in order."""
+    for path in sorted(glob.glob(os.path.join(checkout, "build*", "lib",
                                               "libmolq.so")),
                        key=_mtime, reverse=True):
         yield path
@@ -142,17 +142,25 @@ LIBRARY_PATH = lib._name
 VERSION_NUMBER = lib.molq_version_number()
 VERSION_STRING = lib.molq_version_string().decode("ascii", "replace")
 
-if VERSION_NUMBER // 10000 != EXPECTED_MAJOR:
-    raise ImportError(
-        "molq: the library %s is version %s (major %d) but this Python "
-        "binding is written for major version %d; install a matching "
-        "libmolq or point MOLQ_LIBRARY at one"
-        % (LIBRARY_PATH, VERSION_STRING, VERSION_NUMBER // 10000,
-           EXPECTED_MAJOR))
-if VERSION_NUMBER < MINIMUM_VERSION_NUMBER:
-    raise ImportError(
-        "molq: the library %s is version %s; this binding needs 0.1.0 or "
-        "newer" % (LIBRARY_PATH, VERSION_STRING))
+def check_version(number, text, path):
+    """Raise ImportError unless library version `number` (major*10000 +
+    minor*100 + patch, reported as `text` by the library at `path`) has the
+    major version this binding is written for and is recent enough."""
+    if number // 10000 != EXPECTED_MAJOR:
+        raise ImportError(
+            "molq: the library %s is version %s (major %d) but this Python "
+            "binding is written for major version %d; install a matching "
+            "libmolq or point MOLQ_LIBRARY at one"
+            % (path, text, number // 10000, EXPECTED_MAJOR))
+    if number < MINIMUM_VERSION_NUMBER:
+        raise ImportError(
+            "molq: the library %s is version %s; this binding needs %d.%d.%d "
+            "or newer" % (path, text, MINIMUM_VERSION_NUMBER // 10000,
+                          MINIMUM_VERSION_NUMBER // 100 % 100,
+                          MINIMUM_VERSION_NUMBER % 100))
+
+
+check_version(VERSION_NUMBER, VERSION_STRING, LIBRARY_PATH)
 
 #: Size of the caller-owned error buffer allocated for each fallible call.
 ERRLEN = 512

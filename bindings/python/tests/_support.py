@@ -8,7 +8,8 @@ K_BOLTZMANN = 1.380649e-23    # J/K
 N_AVOGADRO = 6.02214076e23    # 1/mol
 C_LIGHT = 299792458.0         # m/s
 R = N_AVOGADRO * K_BOLTZMANN  # J/(mol K), exact
-C2 = H_PLANCK * C_LIGHT * 100.0 / K_BOLTZMANN  # second radiation constant, cm K
+# Second radiation constant hc/k, cm K.
+C2 = H_PLANCK * C_LIGHT * 100.0 / K_BOLTZMANN
 
 
 def rel_close(a, b, rel):

@@ -2,8 +2,9 @@
 
 Both call the same library, so any difference beyond 1e-10 relative (or the
 CLI's printed precision, >= 10 significant digits, where that is coarser)
-means the binding passes arguments, units or property ids wrongly.  Skipped when MOLQ_CLI is not set (meson sets
-it once the CLI target exists)."""
+means the binding passes arguments, units or property ids wrongly.
+Skipped when MOLQ_CLI is not set (meson sets it once the CLI target
+exists)."""
 
 import csv
 import decimal
