@@ -306,11 +306,16 @@ MOLQ_API const char *molq_species_name(const molq_species *species);
  *         is NULL.  Added in 0.1.0. */
 MOLQ_API const char *molq_species_formula(const molq_species *species);
 
+/* @return the free-text source of a species' data as given in its file
+ *         ("" when none), borrowed; NULL if species is NULL.  Added 0.1.0. */
+MOLQ_API const char *molq_species_source(const molq_species *species);
+
 /* @return the molar mass in kg/mol, or 0 if species is NULL.  Added 0.1.0. */
 MOLQ_API double molq_species_molar_mass(const molq_species *species);
 
 /* @return 1 if the species carries a standard enthalpy of formation, 0 if
- *         not (h is then the sensible enthalpy, see molq_property).  */
+ *         not (h is then the sensible enthalpy, see molq_property) or if
+ *         species is NULL.  Added in 0.1.0. */
 MOLQ_API int molq_species_has_formation_enthalpy(const molq_species *species);
 
 /* @return the lowest temperature in K at which every model of the species
@@ -438,10 +443,6 @@ MOLQ_API const molq_species *molq_db_species(const molq_db *db, size_t index);
  * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
 MOLQ_API molq_status molq_db_find(const molq_db *db, const char *name,
                                   const molq_species **out);
-
-/* @return the free-text source of a species' data as given in its file
- *         ("" when none), borrowed; NULL if species is NULL.  Added 0.1.0. */
-MOLQ_API const char *molq_species_source(const molq_species *species);
 
 #ifdef MOLQ_EXPERIMENTAL
 /* ------------------------------------------------------------------------ */
