@@ -290,6 +290,10 @@ static void show_file_line(const char *path, long line, long col)
             buf[n++] = (ch == '\t') ? ' ' : (char)ch;
     }
     buf[n] = '\0';
+    if (pos == 0) {
+        fprintf(stderr, "molq: line %ld is empty\n", line);
+        goto done;
+    }
     fprintf(stderr, "molq: line %ld reads: %s%s%s\n", line,
             start > 0 ? "..." : "", buf,
             (long)n + start < pos ? "..." : "");

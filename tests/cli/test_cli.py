@@ -1,0 +1,721 @@
+"""Tests of the molq command-line tool (Python standard library only).
+
+The tool is found through the environment variable MOLQ_CLI (set by
+tests/cli/meson.build).  Sources of the expected values are named beside
+each check:
+
+* textbook statistical mechanics of the ideal gas (Sackur-Tetrode
+  translation, classical rigid rotor, harmonic oscillator with the energy
+  zero at the zero-point level, electronic level sum), written here from
+  scratch with the SI 2019 exact constants h, k, N_A, c;
+* NIST-JANAF Thermochemical Tables, 4th ed. (Chase 1998) for a few
+  standard entropies and heat capacities of the built-in species
+  (values from memory, marked so);
+* the species files in tests/cli/data are INVENTED test data.
+"""
+
+import csv
+import io
+import json
+import math
+import os
+import re
+import subprocess
+import sys
+import unittest
+from pathlib import Path
+
+CLI = os.environ.get("MOLQ_CLI")
+DATA = Path(__file__).resolve().parent / "data"
+DEMO = DATA / "demo_species.json"
+BAD = DATA / "bad"
+
+# SI 2019: exact by definition.
+H_PLANCK = 6.62607015e-34  # J s
+K_B = 1.380649e-23  # J/K
+N_A = 6.02214076e23  # 1/mol
+C_LIGHT = 299792458.0  # m/s
+R = N_A * K_B  # J/(mol K)
+C2 = 100.0 * H_PLANCK * C_LIGHT / K_B  # cm K: wavenumber (cm^-1) -> K
+T_REF = 298.15
+
+COLUMNS = ["cp", "cv", "h", "s", "g", "h_minus_h298", "gef", "dcp_dT"]
+CSV_HEADER = "species,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
+DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
+BUILTIN = ["Ar", "O", "H2", "N2", "O2", "CO", "CO2", "H2O"]
+CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
+           "design of pressure equipment, burners or safety systems without "
+           "verification under the applicable codes and licensed engineering "
+           "review.")
+
+
+def run(*args):
+    """Run the CLI; return (exit code, stdout, stderr)."""
+    p = subprocess.run([CLI] + [str(a) for a in args], capture_output=True,
+                       text=True, timeout=60)
+    return p.returncode, p.stdout, p.stderr
+
+
+def run_ok(testcase, *args):
+    rc, out, err = run(*args)
+    testcase.assertEqual(rc, 0, "molq %s failed: %s" % (args, err))
+    return out
+
+
+def parse_csv(text):
+    """csv text -> (header line, list of row dicts with floats)."""
+    lines = text.splitlines()
+    rows = []
+    for r in csv.DictReader(io.StringIO(text)):
+        rows.append({k: (v if k in ("species", "mode") else float(v))
+                     for k, v in r.items()})
+    return lines[0], rows
+
+
+# --------------------------------------------------------------------------
+# Independent rigid-rotor / harmonic-oscillator model (textbook formulas)
+# --------------------------------------------------------------------------
+
+class Model:
+    """One species of the JSON species file, classical rotor only.
+
+    Per mode, ln q, U (thermal energy above the ground level, J/mol),
+    cv and dcv/dT (J/(mol K), J/(mol K^2)) in closed form."""
+
+    def __init__(self, entry):
+        assert (entry["structure"] == "atom"
+                or entry.get("rotor") == "classical"), entry["name"]
+        self.name = entry["name"]
+        self.M = entry["molar_mass"] * 1e-3  # kg/mol
+        self.structure = entry["structure"]
+        self.sigma = entry.get("symmetry_number", 1)
+        self.theta_rot = [C2 * b for b in entry.get("rotational_constants",
+                                                    [])]
+        self.vib = [(C2 * v["wavenumber"], v.get("degeneracy", 1))
+                    for v in entry.get("vibrations", [])]
+        self.levels = [(C2 * e["energy"], e.get("degeneracy", 1))
+                       for e in entry.get("electronic_levels",
+                                          [{"energy": 0.0}])]
+        self.dfH = entry.get("formation_enthalpy_298", 0.0)
+
+    def parts(self, T, p):
+        """Return (ln q, U, cv, dcv_dT) summed over all modes."""
+        # Translation (Sackur-Tetrode): q/N = (2 pi m k T/h^2)^1.5 kT/p.
+        m = self.M / N_A
+        lnq = (1.5 * math.log(2 * math.pi * m * K_B * T / H_PLANCK ** 2)
+               + math.log(K_B * T / p))
+        U = 1.5 * R * T
+        cv = 1.5 * R
+        dcv = 0.0
+        # Classical rigid rotor.
+        if self.structure == "linear":
+            lnq += math.log(T / (self.sigma * self.theta_rot[0]))
+            U += R * T
+            cv += R
+        elif self.structure == "nonlinear":
+            tA, tB, tC = self.theta_rot
+            lnq += math.log(math.sqrt(math.pi * T ** 3 / (tA * tB * tC))
+                            / self.sigma)
+            U += 1.5 * R * T
+            cv += 1.5 * R
+        # Harmonic oscillators, energy zero at the zero-point level.
+        for theta, g in self.vib:
+            x = theta / T
+            em1 = math.expm1(x)  # e^x - 1
+            lnq += -g * math.log1p(-math.exp(-x))
+            U += g * R * theta / em1
+            f = x * x * math.exp(x) / em1 ** 2  # Einstein function
+            cv += g * R * f
+            # d/dT of f(x) with x = theta/T:
+            # f'(x) = x e^x/(e^x-1)^2 [2 + x - 2 x e^x/(e^x-1)]
+            fp = (x * math.exp(x) / em1 ** 2
+                  * (2 + x - 2 * x * math.exp(x) / em1))
+            dcv += g * R * fp * (-x / T)
+        # Electronic levels (energies measured from the lowest level, 0).
+        w = [g * math.exp(-e / T) for e, g in self.levels]
+        q = sum(w)
+        m1 = sum(wi * e for wi, (e, g) in zip(w, self.levels)) / q
+        c2 = sum(wi * (e - m1) ** 2 for wi, (e, g) in zip(w, self.levels)) / q
+        c3 = sum(wi * (e - m1) ** 3 for wi, (e, g) in zip(w, self.levels)) / q
+        lnq += math.log(q)
+        U += R * m1
+        cv += R * c2 / T ** 2
+        # cv_el = R var(E)/T^2, d var/dT = kappa3/T^2.
+        dcv += R * (c3 / T ** 4 - 2 * c2 / T ** 3)
+        return lnq, U, cv, dcv
+
+    def row(self, T, p):
+        lnq, U, cv, dcv = self.parts(T, p)
+        _, U298, _, _ = self.parts(T_REF, p)
+        H_H0 = U + R * T
+        H298_H0 = U298 + R * T_REF
+        h = self.dfH + (H_H0 - H298_H0)
+        s = R * (lnq + 1.0) + U / T
+        g = h - T * s
+        return {
+            "cp": cv + R,
+            "cv": cv,
+            "h": h,
+            "s": s,
+            "g": g,
+            "h_minus_h298": H_H0 - H298_H0,
+            "gef": -(g - self.dfH) / T,
+            "dcp_dT": dcv,
+        }
+
+
+def abs_floor(col, T, model_row):
+    """Absolute tolerance floor 1e-9 of the natural size of a column."""
+    if col in ("cp", "cv", "s", "gef"):
+        scale = model_row["cp"]
+    elif col == "dcp_dT":
+        scale = model_row["cp"] / T
+    else:  # h, g, h_minus_h298
+        scale = model_row["cp"] * T
+    return 1e-9 * scale
+
+
+# --------------------------------------------------------------------------
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class CsvFormat(unittest.TestCase):
+    """1. csv header and row count."""
+
+    def test_header_and_rows_default_T(self):
+        out = run_ok(self, "table", "N2", "CO2", "H2O", "--format", "csv")
+        header, rows = parse_csv(out)
+        self.assertEqual(header, CSV_HEADER)
+        self.assertEqual(len(out.splitlines()), 1 + 3 * len(DEFAULT_T))
+        self.assertEqual([r["T"] for r in rows[:len(DEFAULT_T)]], DEFAULT_T)
+        self.assertEqual([r["species"] for r in rows],
+                         ["N2"] * 11 + ["CO2"] * 11 + ["H2O"] * 11)
+
+    def test_row_count_list_and_range(self):
+        out = run_ok(self, "table", "Ar", "O", "--T", "250,300,7000",
+                     "--format", "csv")
+        self.assertEqual(len(out.splitlines()), 1 + 2 * 3)
+        # Inclusive range: 300, 300.1, ..., 400 is 1001 points; the last
+        # one is printed as the STOP given.
+        out = run_ok(self, "table", "N2", "--T", "300:400:0.1",
+                     "--format", "csv")
+        header, rows = parse_csv(out)
+        self.assertEqual(header, CSV_HEADER)
+        self.assertEqual(len(rows), 1001)
+        self.assertEqual(rows[-1]["T"], 400.0)
+        self.assertAlmostEqual(rows[1]["T"], 300.1, places=9)
+        # STOP not on the grid: 1, 1.3, 1.6, 1.9.
+        out = run_ok(self, "table", "Ar", "--T", "1:2:0.3", "--format", "csv")
+        _, rows = parse_csv(out)
+        self.assertEqual(len(rows), 4)
+        self.assertAlmostEqual(rows[-1]["T"], 1.9, places=12)
+        # START == STOP: one point.
+        out = run_ok(self, "table", "Ar", "--T", "500:500:10", "--format",
+                     "csv")
+        self.assertEqual(len(out.splitlines()), 2)
+        # Option written with '='.
+        out = run_ok(self, "table", "Ar", "--T=300,400", "--format=csv")
+        self.assertEqual(len(out.splitlines()), 3)
+
+    def test_at_least_10_significant_digits(self):
+        out = run_ok(self, "table", "CO2", "--T", "1234.5", "--format", "csv")
+        fields = out.splitlines()[1].split(",")[1:]
+        self.assertEqual(fields[0], "1234.5")
+        for f in fields[1:]:
+            mantissa = f.lower().split("e")[0].lstrip("-").replace(".", "")
+            # %.12g: 12 significant digits, trailing zeros dropped.
+            self.assertGreaterEqual(len(mantissa.lstrip("0")), 10, f)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class IndependentModel(unittest.TestCase):
+    """2. CLI csv against textbook RRHO formulas written from scratch here."""
+
+    TEMPS = [50, 100, 298.15, 300, 451.3, 1000, 2000, 5000, 12000]
+
+    def compare(self, p):
+        doc = json.loads(DEMO.read_text())
+        models = [Model(e) for e in doc["species"]]
+        names = [m.name for m in models]
+        out = run_ok(self, "table", *names, "--data", DEMO, "--T",
+                     ",".join(str(t) for t in self.TEMPS), "--p", repr(p),
+                     "--format", "csv")
+        header, rows = parse_csv(out)
+        self.assertEqual(header, CSV_HEADER)
+        self.assertEqual(len(rows), len(models) * len(self.TEMPS))
+        by_name = {m.name: m for m in models}
+        checked = 0
+        for r in rows:
+            model = by_name[r["species"]]
+            want = model.row(r["T"], p)
+            for col in COLUMNS:
+                tol = max(1e-9 * abs(want[col]),
+                          abs_floor(col, r["T"], want))
+                self.assertLessEqual(
+                    abs(r[col] - want[col]), tol,
+                    "%s at T=%g p=%g: %s cli %.12g, formula %.12g"
+                    % (r["species"], r["T"], p, col, r[col], want[col]))
+                checked += 1
+        self.assertEqual(checked, len(models) * len(self.TEMPS) * 8)
+
+    def test_standard_pressure(self):
+        self.compare(1e5)
+
+    def test_other_pressure(self):
+        self.compare(2.5e6)
+
+    def test_formula_sanity(self):
+        # The from-scratch model itself against two facts of the trade:
+        # a monatomic ideal gas has cp = 5/2 R, and the Sackur-Tetrode
+        # entropy of argon at 298.15 K, 1 bar is 154.85 J/(mol K)
+        # (NIST-JANAF 1998: 154.845, from memory).
+        ar = Model({"name": "Ar", "molar_mass": 39.948, "structure": "atom",
+                    "rotor": "classical"})
+        row = ar.row(298.15, 1e5)
+        self.assertAlmostEqual(row["cp"], 2.5 * R, places=12)
+        self.assertAlmostEqual(row["s"], 154.845, delta=0.01)
+        # High-T limit of a harmonic oscillator: cv -> R per mode.
+        osc = Model({"name": "x", "molar_mass": 30, "structure": "linear",
+                     "rotor": "classical", "rotational_constants": [1.0],
+                     "vibrations": [{"wavenumber": 10.0}]})
+        self.assertAlmostEqual(osc.parts(1e6, 1e5)[2], 3.5 * R, places=6)
+
+    def test_modes_breakdown(self):
+        # Per-mode ln q, u, cv, s of `molq modes` against the same
+        # textbook formulas, mode by mode, and the totals against the sums.
+        T, p = 750.0, 3e5
+        out = run_ok(self, "modes", "demo-linear", "demo-atom", "--data",
+                     DEMO, "--T", T, "--p", p, "--format", "csv")
+        lines = out.splitlines()
+        self.assertEqual(lines[0], "species,T,mode,lnq,u,cv,s")
+        _, rows = parse_csv(out)
+        got = {(r["species"], r["mode"]): r for r in rows}
+        self.assertEqual([r["mode"] for r in rows
+                          if r["species"] == "demo-atom"],
+                         ["translation", "electronic", "total"])
+        # Translation (Sackur-Tetrode) for demo-linear, M = 58.3 g/mol.
+        m = 58.3e-3 / N_A
+        lnq_tr = (1.5 * math.log(2 * math.pi * m * K_B * T / H_PLANCK ** 2)
+                  + math.log(K_B * T / p))
+        tr = got[("demo-linear", "translation")]
+        self.assertAlmostEqual(tr["lnq"] / lnq_tr, 1.0, delta=1e-10)
+        self.assertAlmostEqual(tr["u"] / (1.5 * R * T), 1.0, delta=1e-10)
+        self.assertAlmostEqual(tr["cv"] / (1.5 * R), 1.0, delta=1e-10)
+        self.assertAlmostEqual(tr["s"] / (R * (lnq_tr + 2.5)), 1.0,
+                               delta=1e-10)
+        # Classical linear rotor: q = T/(sigma theta).
+        rot = got[("demo-linear", "rotation")]
+        lnq_rot = math.log(T / (2 * C2 * 0.2871))
+        self.assertAlmostEqual(rot["lnq"] / lnq_rot, 1.0, delta=1e-10)
+        self.assertAlmostEqual(rot["cv"] / R, 1.0, delta=1e-10)
+        self.assertAlmostEqual(rot["s"] / (R * (lnq_rot + 1)), 1.0,
+                               delta=1e-10)
+        for sp in ("demo-linear", "demo-atom"):
+            parts = [r for r in rows if r["species"] == sp
+                     and r["mode"] != "total"]
+            total = got[(sp, "total")]
+            for col in ("lnq", "u", "cv", "s"):
+                self.assertAlmostEqual(sum(r[col] for r in parts),
+                                       total[col],
+                                       delta=1e-9 * abs(total[col]) + 1e-9)
+            model = Model(next(e for e in json.loads(DEMO.read_text())
+                               ["species"] if e["name"] == sp))
+            lnq, U, cv, _ = model.parts(T, p)
+            self.assertAlmostEqual(total["lnq"] / lnq, 1.0, delta=1e-10)
+            self.assertAlmostEqual(total["u"] / U, 1.0, delta=1e-9)
+            self.assertAlmostEqual(total["cv"] / cv, 1.0, delta=1e-10)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class FiniteDifference(unittest.TestCase):
+    """3. dcp_dT against a central difference of the CLI's own cp.
+
+    The json output carries 17 significant digits, so a step of
+    h = 1e-4 T keeps round-off (~1e-16 cp / h) and truncation
+    (~(h/T)^2 x^2/6 for a mode with x = theta/T) well below the 1e-6
+    relative tolerance."""
+
+    def cp_json(self, args, temps):
+        out = run_ok(self, "table", *args, "--T",
+                     ",".join(repr(t) for t in temps), "--format", "json")
+        doc = json.loads(out)
+        return {sp["name"]: [r for r in sp["rows"]] for sp in doc["species"]}
+
+    def check(self, args, temps):
+        plus, minus = [t * (1 + 1e-4) for t in temps], \
+                      [t * (1 - 1e-4) for t in temps]
+        mid = self.cp_json(args, temps)
+        up = self.cp_json(args, plus)
+        dn = self.cp_json(args, minus)
+        n = 0
+        for name in mid:
+            for i, t in enumerate(temps):
+                fd = ((up[name][i]["cp"] - dn[name][i]["cp"])
+                      / (plus[i] - minus[i]))
+                d = mid[name][i]["dcp_dT"]
+                tol = 1e-6 * max(abs(d), mid[name][i]["cp"] / t)
+                self.assertLessEqual(
+                    abs(fd - d), tol,
+                    "%s T=%g: dcp_dT %.10g, finite difference %.10g"
+                    % (name, t, d, fd))
+                n += 1
+        self.assertGreater(n, 0)
+
+    def test_builtin(self):
+        # Corrected rotors, electronic levels (O, O2), a nonlinear top.
+        self.check(["N2", "O2", "CO2", "H2O", "O", "CO"],
+                   [60, 150, 298.15, 700, 1500, 4000])
+
+    def test_h2_low_T(self):
+        # H2 below 20 theta_rot: the exact rotor sum.
+        self.check(["H2"], [25, 40, 80, 200, 1000, 3000])
+
+    def test_demo(self):
+        self.check(["--data", DEMO, "demo-linear", "demo-bent", "demo-top",
+                    "demo-diatomic", "demo-atom"],
+                   [30, 120, 298.15, 900, 3000, 9000])
+
+
+# Bad species files: file -> (substrings stderr must contain, species name
+# or None).  Field names as in the species-file format.
+BAD_FILES = {
+    "malformed.json": (["line 7", "column"], None),
+    "empty.json": (["line 1", "column"], None),
+    "unknown_key.json": (["colour", "unknown key"], "demo-bad"),
+    "unknown_key_nested.json": (["degenerasy", "unknown key"], "demo-bad"),
+    "missing_name.json": (["'name'", "missing"], None),
+    "missing_structure.json": (["'structure'", "missing"], "demo-bad"),
+    "missing_molar_mass.json": (["'molar_mass'", "missing", "formula"],
+                                "demo-bad"),
+    "wrong_type_number.json": (["'molar_mass'", "expected a number"],
+                               "demo-bad"),
+    "wrong_type_integer.json": (["'symmetry_number'", "integer"],
+                                "demo-bad"),
+    # JSON itself cannot hold 1e999 or NaN: the parser reports them with
+    # line and column, and molq quotes the line, which names the field.
+    "overflow_number.json": (["formation_enthalpy_298", "line 36",
+                              "overflow"], None),
+    "nan_number.json": (["formation_enthalpy_298", "line 36", "NaN"], None),
+    "molar_mass_zero.json": (["'molar_mass'", "> 0"], "demo-bad"),
+    "molar_mass_negative.json": (["'molar_mass'", "> 0", "-4"], "demo-bad"),
+    "symmetry_zero.json": (["'symmetry_number'", ">= 1"], "demo-bad"),
+    "rot_count.json": (["'rotational_constants'", "needs 3", "got 1"],
+                       "demo-bad"),
+    "rot_order.json": (["'rotational_constants'", "A >= B >= C"],
+                       "demo-bad"),
+    "rot_negative.json": (["rotational_constants[2]", "> 0"], "demo-bad"),
+    "wavenumber_zero.json": (["vibrations[1].wavenumber", "> 0"],
+                             "demo-bad"),
+    "wavenumber_negative.json": (["vibrations[0].wavenumber", "-420"],
+                                 "demo-bad"),
+    "degeneracy_zero.json": (["vibrations[0].degeneracy", ">= 1"],
+                             "demo-bad"),
+    "electronic_degeneracy_zero.json": (["electronic_levels[0].degeneracy",
+                                         ">= 1"], "demo-bad"),
+    "electronic_no_ground.json": (["'electronic_levels'", "energy 0"],
+                                  "demo-bad"),
+    "duplicate_name.json": (["'name'", "duplicate"], "demo-bad"),
+    "structure_unknown.json": (["'structure'", "nonlinear"], "demo-bad"),
+    "schema_version.json": (["'schema_version'"], None),
+}
+
+# Bad command lines: args -> (exit code, substrings stderr must contain).
+BAD_ARGS = [
+    (["table", "N2", "--T", "0"], 2, ["--T", "'0'", "greater than 0"]),
+    (["table", "N2", "--T", "-5"], 2, ["--T", "'-5'", "greater than 0"]),
+    (["table", "N2", "--T", "300,-5"], 2, ["--T", "'-5'"]),
+    (["table", "N2", "--T", "nan"], 2, ["--T", "'nan'", "not a finite"]),
+    (["table", "N2", "--T", "inf"], 2, ["--T", "'inf'", "not a finite"]),
+    (["table", "N2", "--T", "1e999"], 2, ["--T", "'1e999'", "too large"]),
+    (["table", "N2", "--T", "abc"], 2, ["--T", "'abc'", "not a number"]),
+    (["table", "N2", "--T", "300K"], 2, ["--T", "'300K'", "not a number"]),
+    (["table", "N2", "--T", " 300"], 2, ["--T", "' 300'"]),
+    (["table", "N2", "--T", "0x1p9"], 2, ["--T", "'0x1p9'"]),
+    (["table", "N2", "--T", ""], 2, ["--T", "empty"]),
+    (["table", "N2", "--T", "300,,400"], 2, ["--T", "empty entry"]),
+    (["table", "N2", "--T", "300:200:10"], 2,
+     ["--T", "300:200:10", "START 300 is above STOP 200"]),
+    (["table", "N2", "--T", "300:400:0"], 2, ["--T", "STEP", "'0'"]),
+    (["table", "N2", "--T", "300:400:-10"], 2, ["--T", "STEP", "'-10'"]),
+    (["table", "N2", "--T", "0:400:10"], 2, ["--T", "START", "'0'"]),
+    (["table", "N2", "--T", "300:400"], 2, ["--T", "START:STOP:STEP"]),
+    (["table", "N2", "--T", "300:x:10"], 2, ["--T", "STOP", "'x'"]),
+    (["table", "N2", "--T", "1:2000000:1"], 2, ["--T", "1000000 points"]),
+    (["table", "N2", "--T"], 2, ["--T", "needs a value"]),
+    (["table", "N2", "--T", "300", "--T", "400"], 2, ["--T", "more than once"]),
+    (["table", "N2", "--p", "0"], 2, ["--p", "'0'", "greater than 0"]),
+    (["table", "N2", "--p", "-1"], 2, ["--p", "'-1'", "greater than 0"]),
+    (["table", "N2", "--p", "1bar"], 2, ["--p", "'1bar'", "not a number"]),
+    (["table", "N2", "--p", "nan"], 2, ["--p", "'nan'"]),
+    (["table", "N2", "--colour"], 2, ["unknown option", "--colour"]),
+    (["table", "N2", "-x"], 2, ["unknown option", "-x"]),
+    (["table", "N2", "--per-mass=yes"], 2, ["--per-mass", "takes no value"]),
+    (["modes", "N2", "--per-mass"], 2, ["--per-mass", "modes"]),
+    (["list", "N2"], 2, ["list", "N2"]),
+    (["table"], 2, ["at least one species"]),
+    (["tabel", "N2"], 2, ["unknown command", "tabel"]),
+    (["table", "N2", "--format", "xml"], 2, ["--format", "'xml'",
+                                            "unknown format"]),
+    (["table", "Xe"], 1, ["unknown species", "'Xe'", "built-in"]),
+    (["table", "N2", "n2"], 1, ["unknown species", "'n2'"]),
+    (["table", "demo-nothing", "--data", str(DEMO)], 1,
+     ["unknown species", "'demo-nothing'", str(DEMO), "built-in"]),
+    (["table", "N2", "--data", str(DATA / "no_such_file.json")], 1,
+     ["no_such_file.json", "cannot open"]),
+    (["table", "N2", "--data", str(DATA)], 1, [str(DATA), "read"]),
+    # Evaluation error: the corrected asymmetric top of H2O is valid only
+    # from T = theta_A = hc A/k (about 40 K) up.
+    (["table", "H2O", "--T", "30"], 1,
+     ["'H2O'", "T = 30", "temperature outside the validity range"]),
+    (["modes", "N2", "H2O", "--T", "300,20", "--format", "json"], 1,
+     ["'H2O'", "T = 20", "validity range"]),
+]
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class BadInput(unittest.TestCase):
+    """4. Every bad input: non-zero exit, a clear message, no output."""
+
+    def test_corpus_complete(self):
+        on_disk = sorted(p.name for p in BAD.glob("*.json"))
+        self.assertEqual(on_disk, sorted(BAD_FILES))
+
+    def test_bad_files(self):
+        for fname, (needles, species) in sorted(BAD_FILES.items()):
+            with self.subTest(file=fname):
+                path = BAD / fname
+                for args in (["table", "demo-bad", "--data", path],
+                             ["list", "--data", path]):
+                    rc, out, err = run(*args)
+                    self.assertEqual(rc, 1, err)
+                    self.assertEqual(out, "")
+                    self.assertTrue(err.startswith("molq: "), err)
+                    self.assertIn(str(path), err)
+                    for n in needles:
+                        self.assertIn(n, err)
+                    if species is not None:
+                        self.assertIn("species '%s'" % species, err)
+
+    def test_syntax_error_position(self):
+        rc, _, err = run("table", "x", "--data", BAD / "malformed.json")
+        m = re.search(r"line (\d+), column (\d+)", err)
+        self.assertIsNotNone(m, err)
+        self.assertEqual(int(m.group(1)), 7)
+        # The quoted line is the one the parser stopped at.
+        self.assertIn('"source": "invented test data', err)
+
+    def test_bad_command_lines(self):
+        for args, code, needles in BAD_ARGS:
+            with self.subTest(args=args):
+                rc, out, err = run(*args)
+                self.assertEqual(rc, code, err)
+                self.assertEqual(out, "")
+                self.assertTrue(err.startswith("molq: "), err)
+                for n in needles:
+                    self.assertIn(n, err)
+
+    def test_no_arguments(self):
+        rc, out, err = run()
+        self.assertEqual(rc, 2)
+        self.assertIn("Usage", err)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class BuiltinFormats(unittest.TestCase):
+    """5. Built-in species in text and json; json equals csv."""
+
+    def test_json_equals_csv(self):
+        args = ["table"] + BUILTIN + ["--T", "200,298.15,1000,2500"]
+        _, rows = parse_csv(run_ok(self, *args, "--format", "csv"))
+        csv_lines = run_ok(self, *args, "--format", "csv").splitlines()[1:]
+        doc = json.loads(run_ok(self, *args, "--format", "json"))
+        self.assertEqual(doc["pressure"], 1e5)
+        self.assertEqual(doc["basis"], "molar")
+        self.assertEqual(doc["units"]["cp"], "J/(mol K)")
+        self.assertEqual(doc["units"]["h"], "J/mol")
+        self.assertEqual(doc["units"]["dcp_dT"], "J/(mol K^2)")
+        self.assertEqual([s["name"] for s in doc["species"]], BUILTIN)
+        i = 0
+        for sp in doc["species"]:
+            self.assertEqual(len(sp["rows"]), 4)
+            for r in sp["rows"]:
+                # The csv prints %.12g of the very same double.
+                line = ",".join([sp["name"], "%.12g" % r["T"]]
+                                + ["%.12g" % r[c] for c in COLUMNS])
+                self.assertEqual(line, csv_lines[i])
+                i += 1
+        self.assertEqual(i, len(rows))
+
+    def test_json_round_trip_digits(self):
+        # 17 significant digits: the json numbers are the doubles the
+        # library computed; recomputing a difference must agree exactly
+        # with the same difference from a second run.
+        a = json.loads(run_ok(self, "table", "CO2", "--T", "1000",
+                              "--format", "json"))
+        b = json.loads(run_ok(self, "table", "CO2", "--T", "1000",
+                              "--format", "json"))
+        self.assertEqual(a, b)
+        r = a["species"][0]["rows"][0]
+        # cp - cv = R exactly up to double round-off (ideal gas).
+        self.assertAlmostEqual(r["cp"] - r["cv"], R, delta=1e-12)
+
+    def test_text_table(self):
+        out = run_ok(self, "table", "N2", "H2O", "--T", "300,1000,2000")
+        self.assertIn("p = 100000 Pa", out)
+        _, rows = parse_csv(run_ok(self, "table", "N2", "H2O", "--T",
+                                   "300,1000,2000", "--format", "csv"))
+        lines = out.splitlines()
+        for name in ("N2", "H2O"):
+            start = next(i for i, l in enumerate(lines)
+                         if l.startswith(name + "  ("))
+            head, units = lines[start + 1], lines[start + 2]
+            self.assertEqual(head.split(), ["T"] + COLUMNS)
+            self.assertEqual(units.split(),
+                             ["K", "J/(mol", "K)", "J/(mol", "K)", "J/mol",
+                              "J/(mol", "K)", "J/mol", "J/mol", "J/(mol",
+                              "K)", "J/(mol", "K^2)"])
+            # Columns are aligned: every header name ends where its
+            # numbers end.
+            ends = [m.end() for m in re.finditer(r"\S+", head)]
+            body = lines[start + 3:start + 6]
+            want = [r for r in rows if r["species"] == name]
+            for line, r in zip(body, want):
+                self.assertEqual([m.end() for m in
+                                  re.finditer(r"\S+", line)], ends)
+                vals = [float(v) for v in line.split()]
+                self.assertEqual(vals[0], r["T"])
+                for v, c in zip(vals[1:], COLUMNS):
+                    self.assertAlmostEqual(v, r[c],
+                                           delta=1e-6 * abs(r[c]) + 1e-9)
+
+    def test_janaf_sanity(self):
+        # RRHO values of the built-in set at 298.15 K, 1 bar, against
+        # NIST-JANAF 1998 (values from memory).  Tolerances allow for the
+        # rigid-rotor / harmonic-oscillator model (no anharmonicity).
+        janaf = {  # name: (cp, s) J/(mol K)
+            "Ar": (20.786, 154.845),
+            "N2": (29.124, 191.609),
+            "O2": (29.376, 205.147),
+            "CO": (29.142, 197.653),
+            "CO2": (37.135, 213.795),
+            "H2O": (33.590, 188.834),
+        }
+        out = run_ok(self, "table", *janaf, "--T", "298.15", "--format",
+                     "json")
+        for sp in json.loads(out)["species"]:
+            cp, s = janaf[sp["name"]]
+            r = sp["rows"][0]
+            self.assertAlmostEqual(r["cp"], cp, delta=0.01 * cp, msg=sp["name"])
+            self.assertAlmostEqual(r["s"], s, delta=0.003 * s, msg=sp["name"])
+            self.assertAlmostEqual(r["h_minus_h298"], 0.0, delta=1e-6)
+        # Ar: cp = 5/2 R exactly for a structureless atom (textbook).
+        ar = json.loads(out)["species"][0]["rows"][0]
+        self.assertAlmostEqual(ar["cp"], 2.5 * R, places=10)
+
+    def test_per_mass_and_pressure(self):
+        molar = json.loads(run_ok(self, "table", "CO2", "H2", "--T",
+                                  "500,1500", "--format", "json"))
+        mass = json.loads(run_ok(self, "table", "CO2", "H2", "--T",
+                                 "500,1500", "--format", "json",
+                                 "--per-mass"))
+        self.assertEqual(mass["basis"], "mass")
+        self.assertEqual(mass["units"]["cp"], "J/(kg K)")
+        self.assertEqual(mass["units"]["h"], "J/kg")
+        self.assertEqual(mass["units"]["dcp_dT"], "J/(kg K^2)")
+        for a, b in zip(molar["species"], mass["species"]):
+            M = a["molar_mass"] * 1e-3  # g/mol -> kg/mol
+            for ra, rb in zip(a["rows"], b["rows"]):
+                for c in COLUMNS:
+                    self.assertAlmostEqual(rb[c], ra[c] / M,
+                                           delta=1e-12 * abs(ra[c] / M))
+        # Ideal gas: s(p2) - s(p1) = -R ln(p2/p1); cp and h do not depend
+        # on p (textbook).
+        lo = json.loads(run_ok(self, "table", "N2", "--T", "800", "--p",
+                               "1e4", "--format", "json"))
+        hi = json.loads(run_ok(self, "table", "N2", "--T", "800", "--p",
+                               "1e6", "--format", "json"))
+        rlo, rhi = lo["species"][0]["rows"][0], hi["species"][0]["rows"][0]
+        self.assertAlmostEqual(rhi["s"] - rlo["s"], -R * math.log(100),
+                               delta=1e-9)
+        self.assertEqual(rhi["cp"], rlo["cp"])
+        self.assertEqual(rhi["h"], rlo["h"])
+
+    def test_modes_json_and_text(self):
+        doc = json.loads(run_ok(self, "modes", "O2", "H2O", "--T", "1000",
+                                "--format", "json"))
+        o2 = doc["species"][0]
+        self.assertEqual(o2["modes"], ["translation", "rotation",
+                                       "vibration", "electronic"])
+        row = o2["rows"][0]
+        self.assertEqual(row["T"], 1000)
+        for c in ("lnq", "cv", "s", "u"):
+            self.assertAlmostEqual(sum(m[c] for m in row["modes"]),
+                                   row["total"][c],
+                                   delta=1e-9 * abs(row["total"][c]))
+        tab = json.loads(run_ok(self, "table", "O2", "--T", "1000",
+                                "--format", "json"))
+        t = tab["species"][0]["rows"][0]
+        self.assertAlmostEqual(row["total"]["cv"], t["cv"], delta=1e-9)
+        self.assertAlmostEqual(row["total"]["s"], t["s"], delta=1e-9)
+        text = run_ok(self, "modes", "O2", "--T", "1000")
+        self.assertIn("T = 1000 K", text)
+        for word in ("translation", "rotation", "vibration", "electronic",
+                     "total", "J/(mol K)"):
+            self.assertIn(word, text)
+
+    def test_list(self):
+        out = run_ok(self, "list")
+        for name in BUILTIN:
+            self.assertRegex(out, r"(?m)^%s\s" % re.escape(name))
+        doc = json.loads(run_ok(self, "list", "--data", DEMO, "--format",
+                                "json"))
+        info = {s["name"]: s for s in doc["species"]}
+        self.assertEqual(info["demo-bent"]["structure"], "nonlinear")
+        self.assertEqual(info["demo-linear"]["structure"], "linear")
+        self.assertEqual(info["demo-atom"]["structure"], "atom")
+        self.assertEqual(info["CO2"]["structure"], "linear")
+        self.assertEqual(info["H2O"]["structure"], "nonlinear")
+        self.assertFalse(info["demo-bent"]["has_formation_enthalpy"])
+        self.assertTrue(info["demo-linear"]["has_formation_enthalpy"])
+        self.assertEqual(info["demo-linear"]["molar_mass"], 58.3)
+        self.assertEqual(info["demo-linear"]["set"], "file")
+        self.assertEqual(info["N2"]["set"], "built-in")
+        self.assertIn("JANAF", info["CO2"]["source"])
+        # csv: the quoted source with commas survives.
+        rows = list(csv.DictReader(io.StringIO(
+            run_ok(self, "list", "--format", "csv"))))
+        self.assertEqual([r["name"] for r in rows], BUILTIN)
+        self.assertIn(",", rows[0]["source"] + rows[2]["source"])
+
+    def test_data_file_searched_first(self):
+        # shadow.json (invented) holds an 'N2' of molar mass 40 g/mol.
+        shadow = DATA / "shadow.json"
+        a = json.loads(run_ok(self, "table", "N2", "--T", "500",
+                              "--format", "json"))
+        b = json.loads(run_ok(self, "table", "N2", "--T", "500", "--data",
+                              shadow, "--format", "json"))
+        self.assertEqual(a["species"][0]["molar_mass"], 28.0134)
+        self.assertEqual(b["species"][0]["molar_mass"], 40.0)
+        out = run_ok(self, "list", "--data", shadow)
+        self.assertIn("built-in (hidden by file)", out)
+        # Built-in species stay reachable with --data.
+        run_ok(self, "table", "CO", "--data", shadow)
+
+    def test_help_and_version(self):
+        for args in (["--help"], ["help"], ["help", "table"],
+                     ["table", "--help"], ["-h"]):
+            out = run_ok(self, *args)
+            flat = " ".join(out.split())
+            self.assertIn(CAUTION, flat)
+            for word in ("table", "modes", "list", "--data", "--T", "--p",
+                         "--format", "--per-mass", "J/(mol K)", "J/mol",
+                         "J/(mol K^2)", "START:STOP:STEP"):
+                self.assertIn(word, out)
+        out = run_ok(self, "--version")
+        self.assertRegex(out, r"^molq \d+\.\d+\.\d+")
+
+
+if __name__ == "__main__":
+    if not CLI:
+        sys.exit("MOLQ_CLI is not set")
+    unittest.main(verbosity=2)
