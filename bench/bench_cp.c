@@ -47,12 +47,17 @@
 
 /* ---- benchmark shape ---------------------------------------------------- */
 
-#define NT 4096          /* temperatures per pass */
+/* Temperatures per pass.  65536 rather than a few thousand on purpose: a
+ * modern branch predictor learns a repeating pattern of several thousand
+ * random outcomes (on the AMD EPYC this was written on, a shuffled array of
+ * 8192 temperatures made the NASA range branch free; 32768 and more did
+ * not), which would flatter the polynomial's range branch. */
+#define NT 65536
 #define T_LO 300.0       /* K */
 #define T_HI 3000.0      /* K */
 #define P_BENCH MOLQ_P_STANDARD
-#define REPEATS 25       /* timed blocks per measurement; the best is kept */
-#define MIN_BLOCK_NS 3e6 /* each timed block lasts at least ~3 ms */
+#define ROUNDS 25        /* timed blocks per measurement; the best is kept */
+#define MIN_BLOCK_NS 2e6 /* each timed block lasts at least ~2 ms */
 #define SHUFFLE_SEED 20240611u
 
 /* ---- NASA 7-coefficient polynomial ranges and fit ----------------------- */
@@ -170,7 +175,8 @@ static void k_molq_three_cphs(bench_ctx *c)
 /* cp/R = a1 + a2 T + a3 T^2 + a4 T^3 + a5 T^4 */
 static inline double nasa_cp(const nasa7 *p, double T)
 {
-    const double *a = T < NASA_T_MID ? p->lo.a : p->hi.a;
+    const nasa_range *r = T < NASA_T_MID ? &p->lo : &p->hi;
+    const double *a = r->a;
     return R_GAS * (a[0] + T * (a[1] + T * (a[2] + T * (a[3] + T * a[4]))));
 }
 
@@ -201,6 +207,23 @@ static void k_nasa_cp(bench_ctx *c)
         c->out[i] = nasa_cp(c->poly, c->T[i]);
 }
 
+/* The same cp with the range test written as an if/else around two copies
+ * of the formula, as some codes do; gcc keeps this one as a real branch
+ * (the form above becomes a conditional move), so with shuffled
+ * temperatures it pays for mispredictions. */
+static void k_nasa_cp_ifelse(bench_ctx *c)
+{
+    const double *lo = c->poly->lo.a, *hi = c->poly->hi.a;
+    size_t i;
+    for (i = 0; i < c->n; i++) {
+        double T = c->T[i];
+        if (T < NASA_T_MID)
+            c->out[i] = R_GAS * (lo[0] + T * (lo[1] + T * (lo[2] + T * (lo[3] + T * lo[4]))));
+        else
+            c->out[i] = R_GAS * (hi[0] + T * (hi[1] + T * (hi[2] + T * (hi[3] + T * hi[4]))));
+    }
+}
+
 static void k_nasa_h(bench_ctx *c)
 {
     size_t i;
@@ -221,6 +244,7 @@ static void k_exp_floor(bench_ctx *c)
 
 /* One measurement: a kernel over a temperature array into an output array. */
 typedef struct {
+    bench_ctx *ctx;
     kernel_fn kernel;
     const double *T;
     double *out;
@@ -228,8 +252,12 @@ typedef struct {
     double best;   /* best block, ns per evaluation */
 } measurement;
 
-static double time_block(measurement *m, bench_ctx *c)
+static int rounds = ROUNDS;
+static double min_block_ns = MIN_BLOCK_NS;
+
+static double time_block(measurement *m)
 {
+    bench_ctx *c = m->ctx;
     double t0, t1;
     size_t p;
     c->T = m->T;
@@ -243,24 +271,26 @@ static double time_block(measurement *m, bench_ctx *c)
 }
 
 /* Time every measurement: first the passes per block are doubled until one
- * block lasts MIN_BLOCK_NS (this also warms caches and branch predictors),
- * then REPEATS rounds run one block of each measurement in turn, so that a
- * slow phase of the machine hits all of them alike; the best block counts. */
-static void time_all(measurement *ms, size_t count, bench_ctx *c)
+ * block lasts min_block_ns (this also warms caches and branch predictors),
+ * then `rounds` rounds run one block of every measurement of every species
+ * in turn, so that a slow phase of the machine (frequency changes, a
+ * neighbour on a shared host) hits all of them alike; each measurement keeps
+ * its best block. */
+static void time_all(measurement *ms, size_t count)
 {
     size_t i;
     int r;
     for (i = 0; i < count; i++) {
         ms[i].passes = 1;
-        while (time_block(&ms[i], c) * (double)c->n * (double)ms[i].passes <
-                   MIN_BLOCK_NS &&
+        while (time_block(&ms[i]) * (double)ms[i].ctx->n *
+                       (double)ms[i].passes < min_block_ns &&
                ms[i].passes < ((size_t)1 << 20))
             ms[i].passes *= 2;
         ms[i].best = DBL_MAX;
     }
-    for (r = 0; r < REPEATS; r++)
+    for (r = 0; r < rounds; r++)
         for (i = 0; i < count; i++) {
-            double t = time_block(&ms[i], c);
+            double t = time_block(&ms[i]);
             if (t < ms[i].best)
                 ms[i].best = t;
         }
@@ -409,22 +439,60 @@ static uint64_t splitmix64(uint64_t *s)
 
 typedef struct {
     double scalar, batch, poly_cp, poly_h, expf, many, three;
-    double scalar_sorted, poly_cp_sorted;
+    double scalar_sorted, poly_cp_sorted, ifelse, ifelse_sorted;
     fit_error fit_bench, fit_full;
     double cp_step; /* |cp_lo(1000) - cp_hi(1000)|, J/(mol K) */
 } result;
 
-int main(void)
+/* Per-species state and outputs (static: about 19 MB in all). */
+typedef struct {
+    const molq_species *sp;
+    nasa7 poly;
+    double theta[4];
+    bench_ctx ctx;
+    double o_scalar[NT], o_batch[NT], o_pcp[NT], o_ph[NT], o_exp[NT],
+        o_tmp[NT], o_ifelse[NT], o_many[3 * NT], o_three[3 * NT];
+    result r;
+} species_run;
+
+#define NKERNELS 11
+
+static double T_sorted[NT], T_shuf[NT];
+static species_run runs[NSPECIES];
+
+static void usage(void)
 {
-    static double T_sorted[NT], T_shuf[NT];
-    static double o_scalar[NT], o_batch[NT], o_pcp[NT], o_ph[NT], o_exp[NT],
-        o_tmp[NT], o_many[3 * NT], o_three[3 * NT];
-    result res[NSPECIES];
+    printf("usage: bench_cp [--quick]\n"
+           "  Times cp evaluation in molq (scalar and batch) against a NASA\n"
+           "  7-coefficient polynomial fitted to molq and against the bare exp()\n"
+           "  calls of the vibrational model, for N2, H2O and CO2; prints ns per\n"
+           "  evaluation and ratios; exits 1 if a verification fails.\n"
+           "  --quick  3 rounds of short blocks (for valgrind --tool=callgrind;\n"
+           "           the times it prints are then rough)\n");
+}
+
+int main(int argc, char **argv)
+{
+    measurement ms[NSPECIES * NKERNELS];
     char err[256];
     molq_db *db = NULL;
     uint64_t seed = SHUFFLE_SEED;
     size_t i, s;
     double t_start = now_ns();
+
+    for (i = 1; i < (size_t)argc; i++) {
+        if (strcmp(argv[i], "--quick") == 0) {
+            rounds = 3;
+            min_block_ns = 2e5;
+        } else if (strcmp(argv[i], "--help") == 0 || strcmp(argv[i], "-h") == 0) {
+            usage();
+            return 0;
+        } else {
+            fprintf(stderr, "bench_cp: unknown argument '%s'\n", argv[i]);
+            usage();
+            return 2;
+        }
+    }
 
     gsl_set_error_handler_off();
     if (molq_db_builtin(&db, err, sizeof err) != MOLQ_OK) {
@@ -444,167 +512,185 @@ int main(void)
     printf("molq %s cp benchmark: %d temperatures evenly spread over %.0f-%.0f K, "
            "shuffled (fixed seed), p = %.0f Pa\n",
            molq_version_string(), NT, T_LO, T_HI, P_BENCH);
-    printf("time per evaluation (one temperature) in ns, best of %d blocks of >= %.0f ms\n\n",
-           REPEATS, MIN_BLOCK_NS / 1e6);
+    printf("time per evaluation (one temperature) in ns, best of %d blocks of >= %.1f ms,\n"
+           "all measurements of all species interleaved round by round\n\n",
+           rounds, min_block_ns / 1e6);
 
+    /* Set up: find each species, check the hard-coded data, fit the
+     * stand-in polynomial. */
     for (s = 0; s < NSPECIES; s++) {
         const bench_species *b = &SPECIES[s];
-        const molq_species *sp;
-        nasa7 poly;
-        double theta[4];
-        bench_ctx c;
-        result *r = &res[s];
+        species_run *u = &runs[s];
+        result *r = &u->r;
 
-        if (molq_db_find(db, b->name, &sp) != MOLQ_OK) {
+        if (molq_db_find(db, b->name, &u->sp) != MOLQ_OK) {
             fprintf(stderr, "bench_cp: species %s not in the built-in set\n", b->name);
             molq_db_free(db);
             return 2;
         }
-        check(check_vibrations(sp, b), b->name,
+        check(check_vibrations(u->sp, b), b->name,
               "hard-coded wavenumbers do not reproduce molq's vibrational cv "
               "(data/species.json changed?)");
         for (i = 0; i < b->nvib; i++)
-            theta[i] = C2_CM_K * b->wavenumber[i];
+            u->theta[i] = C2_CM_K * b->wavenumber[i];
 
-        if (!fit_range(sp, NASA_T_LOW, NASA_T_MID, &poly.lo) ||
-            !fit_range(sp, NASA_T_MID, NASA_T_HIGH, &poly.hi)) {
+        if (!fit_range(u->sp, NASA_T_LOW, NASA_T_MID, &u->poly.lo) ||
+            !fit_range(u->sp, NASA_T_MID, NASA_T_HIGH, &u->poly.hi)) {
             fprintf(stderr, "bench_cp: %s: polynomial fit failed\n", b->name);
             molq_db_free(db);
             return 2;
         }
-        memset(&r->fit_bench, 0, sizeof r->fit_bench);
-        memset(&r->fit_full, 0, sizeof r->fit_full);
         for (i = 0; i < NT; i++)
-            fit_error_add(&r->fit_bench, &poly, sp, T_sorted[i]);
+            fit_error_add(&r->fit_bench, &u->poly, u->sp, T_sorted[i]);
         for (i = 0; i <= 5800; i++) /* 200-6000 K in 1 K steps */
-            fit_error_add(&r->fit_full, &poly, sp, NASA_T_LOW + (double)i);
+            fit_error_add(&r->fit_full, &u->poly, u->sp, NASA_T_LOW + (double)i);
         {
-            const double *lo = poly.lo.a, *hi = poly.hi.a, T = NASA_T_MID;
+            const double *lo = u->poly.lo.a, *hi = u->poly.hi.a, T = NASA_T_MID;
             double cl = lo[0] + T * (lo[1] + T * (lo[2] + T * (lo[3] + T * lo[4])));
             double ch = hi[0] + T * (hi[1] + T * (hi[2] + T * (hi[3] + T * hi[4])));
             r->cp_step = R_GAS * fabs(cl - ch);
         }
 
-        memset(&c, 0, sizeof c);
-        c.sp = sp;
-        c.n = NT;
-        c.poly = &poly;
-        c.theta = theta;
-        c.ntheta = b->nvib;
-
+        u->ctx.sp = u->sp;
+        u->ctx.n = NT;
+        u->ctx.poly = &u->poly;
+        u->ctx.theta = u->theta;
+        u->ctx.ntheta = b->nvib;
         {
-            measurement ms[] = {
-                {k_molq_scalar_cp, T_shuf, o_scalar, 0, 0.0},
-                {k_molq_batch_cp, T_shuf, o_batch, 0, 0.0},
-                {k_nasa_cp, T_shuf, o_pcp, 0, 0.0},
-                {k_nasa_h, T_shuf, o_ph, 0, 0.0},
-                {k_exp_floor, T_shuf, o_exp, 0, 0.0},
-                {k_molq_many_cphs, T_shuf, o_many, 0, 0.0},
-                {k_molq_three_cphs, T_shuf, o_three, 0, 0.0},
-                {k_molq_scalar_cp, T_sorted, o_tmp, 0, 0.0},
-                {k_nasa_cp, T_sorted, o_tmp, 0, 0.0},
+            measurement m[NKERNELS] = {
+                {&u->ctx, k_molq_scalar_cp, T_shuf, u->o_scalar, 0, 0.0},
+                {&u->ctx, k_molq_batch_cp, T_shuf, u->o_batch, 0, 0.0},
+                {&u->ctx, k_nasa_cp, T_shuf, u->o_pcp, 0, 0.0},
+                {&u->ctx, k_nasa_h, T_shuf, u->o_ph, 0, 0.0},
+                {&u->ctx, k_exp_floor, T_shuf, u->o_exp, 0, 0.0},
+                {&u->ctx, k_molq_many_cphs, T_shuf, u->o_many, 0, 0.0},
+                {&u->ctx, k_molq_three_cphs, T_shuf, u->o_three, 0, 0.0},
+                {&u->ctx, k_molq_scalar_cp, T_sorted, u->o_tmp, 0, 0.0},
+                {&u->ctx, k_nasa_cp, T_sorted, u->o_tmp, 0, 0.0},
+                {&u->ctx, k_nasa_cp_ifelse, T_shuf, u->o_ifelse, 0, 0.0},
+                {&u->ctx, k_nasa_cp_ifelse, T_sorted, u->o_tmp, 0, 0.0},
             };
-            time_all(ms, sizeof ms / sizeof ms[0], &c);
-            r->scalar = ms[0].best;
-            r->batch = ms[1].best;
-            r->poly_cp = ms[2].best;
-            r->poly_h = ms[3].best;
-            r->expf = ms[4].best;
-            r->many = ms[5].best;
-            r->three = ms[6].best;
-            r->scalar_sorted = ms[7].best;
-            r->poly_cp_sorted = ms[8].best;
-        }
-
-        /* Verification of what was timed. */
-        check(!c.fail, b->name, "a molq evaluation returned an error");
-        check(memcmp(o_scalar, o_batch, sizeof o_scalar) == 0, b->name,
-              "molq_eval_batch differs from molq_eval");
-        check(memcmp(o_many, o_three, sizeof o_many) == 0, b->name,
-              "molq_eval_many(cp,h,s) differs from three molq_eval calls");
-        {
-            int cp_same = 1, bounds = 1, fit_ok = 1;
-            /* Equipartition bounds (textbook): translation 3/2 R + R for
-             * p V, rotation R (linear) or 3/2 R (nonlinear), each vibrational
-             * degree of freedom between 0 and R; small slack for the
-             * rotor's quantum corrections. */
-            double lo = b->linear ? 3.5 : 4.0;
-            double hi = lo;
-            for (i = 0; i < b->nvib; i++)
-                hi += b->degeneracy[i];
-            for (i = 0; i < NT; i++) {
-                double cpR = o_scalar[i] / R_GAS;
-                if (o_many[3 * i] != o_scalar[i])
-                    cp_same = 0;
-                if (!(cpR > lo - 0.01 && cpR < hi + 0.01))
-                    bounds = 0;
-                if (!(fabs(o_pcp[i] - o_scalar[i]) <= FIT_TOL_REL * o_scalar[i]))
-                    fit_ok = 0;
-            }
-            check(cp_same, b->name, "cp from molq_eval_many differs from molq_eval");
-            check(bounds, b->name, "cp outside the equipartition bounds");
-            check(fit_ok && r->fit_full.cp_rel <= FIT_TOL_REL, b->name,
-                  "fitted polynomial misses molq's cp by more than FIT_TOL_REL");
-            check(isfinite(o_ph[0]) && isfinite(o_exp[0]), b->name,
-                  "non-finite polynomial h or exp sum");
+            memcpy(&ms[s * NKERNELS], m, sizeof m);
         }
     }
 
-    /* Table. */
+    time_all(ms, NSPECIES * NKERNELS);
+
+    for (s = 0; s < NSPECIES; s++) {
+        const bench_species *b = &SPECIES[s];
+        species_run *u = &runs[s];
+        result *r = &u->r;
+        const measurement *m = &ms[s * NKERNELS];
+        int cp_same = 1, bounds = 1, fit_ok = 1;
+        /* Equipartition bounds (textbook): translation 3/2 R plus R for
+         * p V, rotation R (linear) or 3/2 R (nonlinear), each vibrational
+         * degree of freedom between 0 and R; a little slack for the rotor's
+         * quantum corrections. */
+        double lo = b->linear ? 3.5 : 4.0, hi = lo;
+
+        r->scalar = m[0].best;
+        r->batch = m[1].best;
+        r->poly_cp = m[2].best;
+        r->poly_h = m[3].best;
+        r->expf = m[4].best;
+        r->many = m[5].best;
+        r->three = m[6].best;
+        r->scalar_sorted = m[7].best;
+        r->poly_cp_sorted = m[8].best;
+        r->ifelse = m[9].best;
+        r->ifelse_sorted = m[10].best;
+
+        /* Verification of what was timed. */
+        check(!u->ctx.fail, b->name, "a molq evaluation returned an error");
+        check(memcmp(u->o_scalar, u->o_batch, sizeof u->o_scalar) == 0, b->name,
+              "molq_eval_batch differs from molq_eval");
+        check(memcmp(u->o_pcp, u->o_ifelse, sizeof u->o_pcp) == 0, b->name,
+              "the two forms of the NASA cp polynomial differ");
+        check(memcmp(u->o_many, u->o_three, sizeof u->o_many) == 0, b->name,
+              "molq_eval_many(cp,h,s) differs from three molq_eval calls");
+        for (i = 0; i < b->nvib; i++)
+            hi += b->degeneracy[i];
+        for (i = 0; i < NT; i++) {
+            double cpR = u->o_scalar[i] / R_GAS;
+            if (u->o_many[3 * i] != u->o_scalar[i])
+                cp_same = 0;
+            if (!(cpR > lo - 0.01 && cpR < hi + 0.01))
+                bounds = 0;
+            if (!(fabs(u->o_pcp[i] - u->o_scalar[i]) <= FIT_TOL_REL * u->o_scalar[i]))
+                fit_ok = 0;
+            if (!isfinite(u->o_ph[i]) || !isfinite(u->o_exp[i]))
+                fit_ok = 0;
+        }
+        check(cp_same, b->name, "cp from molq_eval_many differs from molq_eval");
+        check(bounds, b->name, "cp outside the equipartition bounds");
+        check(fit_ok && r->fit_full.cp_rel <= FIT_TOL_REL, b->name,
+              "fitted polynomial misses molq's cp by more than FIT_TOL_REL");
+    }
+    molq_db_free(db);
+
+    /* Report. */
     printf("%-7s %12s %11s %9s %9s %10s | %10s %9s %9s %11s\n", "species",
            "molq scalar", "molq batch", "NASA cp", "NASA h", "exp floor",
            "scalar/cp", "batch/cp", "scalar/h", "scalar/exp");
     for (s = 0; s < NSPECIES; s++) {
-        const result *r = &res[s];
+        const result *r = &runs[s].r;
         printf("%-7s %12.1f %11.1f %9.2f %9.2f %10.2f | %10.1f %9.1f %9.1f %11.2f\n",
                SPECIES[s].name, r->scalar, r->batch, r->poly_cp, r->poly_h,
                r->expf, r->scalar / r->poly_cp, r->batch / r->poly_cp,
                r->scalar / r->poly_h, r->scalar / r->expf);
     }
-    printf("(exp floor: %s)\n\n", "one exp(-theta_i/T) per vibration entry: N2 1, H2O 3, CO2 3");
+    printf("(exp floor: one exp(-theta_i/T) per vibration entry: N2 1, H2O 3, CO2 3)\n\n");
 
     printf("(cp, h, s) at one state, ns per temperature:\n");
     printf("%-7s %16s %14s %8s\n", "species", "molq_eval_many", "3 x molq_eval", "saving");
     for (s = 0; s < NSPECIES; s++)
-        printf("%-7s %16.1f %14.1f %7.2fx\n", SPECIES[s].name, res[s].many,
-               res[s].three, res[s].three / res[s].many);
-    printf("\nsorted temperatures instead of shuffled, ns per evaluation:\n");
-    for (s = 0; s < NSPECIES; s++)
-        printf("%-7s molq scalar %6.1f (shuffled %6.1f)   NASA cp %6.2f (shuffled %6.2f)\n",
-               SPECIES[s].name, res[s].scalar_sorted, res[s].scalar,
-               res[s].poly_cp_sorted, res[s].poly_cp);
+        printf("%-7s %16.1f %14.1f %7.2fx\n", SPECIES[s].name, runs[s].r.many,
+               runs[s].r.three, runs[s].r.three / runs[s].r.many);
+
+    printf("\ntemperature order and the polynomial's range test, ns per evaluation:\n");
+    printf("%-7s %22s %22s %22s\n", "", "molq scalar", "NASA cp (select)",
+           "NASA cp (if/else)");
+    printf("%-7s %11s %10s %11s %10s %11s %10s\n", "species", "shuffled",
+           "sorted", "shuffled", "sorted", "shuffled", "sorted");
+    for (s = 0; s < NSPECIES; s++) {
+        const result *r = &runs[s].r;
+        printf("%-7s %11.1f %10.1f %11.2f %10.2f %11.2f %10.2f\n",
+               SPECIES[s].name, r->scalar, r->scalar_sorted, r->poly_cp,
+               r->poly_cp_sorted, r->ifelse, r->ifelse_sorted);
+    }
 
     printf("\nfit of the NASA stand-in to molq (plain least squares per range, "
            "no continuity constraint at %.0f K):\n", NASA_T_MID);
     for (s = 0; s < NSPECIES; s++) {
-        const result *r = &res[s];
-        printf("%-7s max |cp_fit - cp| %.4f J/(mol K) (%.3f %%) over %.0f-%.0f K, "
-               "%.4f J/(mol K) (%.3f %%, at %.0f K) over %.0f-%.0f K; max |h_fit - h| %.1f J/mol; "
-               "cp step at %.0f K %.4f J/(mol K)\n",
-               SPECIES[s].name, r->fit_bench.cp_abs, 100 * r->fit_bench.cp_rel, T_LO,
-               T_HI, r->fit_full.cp_abs, 100 * r->fit_full.cp_rel, r->fit_full.cp_T,
-               NASA_T_LOW, NASA_T_HIGH, r->fit_full.h_abs, NASA_T_MID, r->cp_step);
+        const result *r = &runs[s].r;
+        printf("%-7s max |cp_fit - cp| %.4f J/(mol K) (%.3f %%) over %.0f-%.0f K,\n"
+               "%-7s %.4f J/(mol K) (%.3f %%, at %.0f K) over %.0f-%.0f K;"
+               " max |h_fit - h| %.1f J/mol; cp step at %.0f K %.4f J/(mol K)\n",
+               SPECIES[s].name, r->fit_bench.cp_abs, 100 * r->fit_bench.cp_rel,
+               T_LO, T_HI, "", r->fit_full.cp_abs, 100 * r->fit_full.cp_rel,
+               r->fit_full.cp_T, NASA_T_LOW, NASA_T_HIGH, r->fit_full.h_abs,
+               NASA_T_MID, r->cp_step);
     }
 
     printf("\n");
     for (s = 0; s < NSPECIES; s++) {
-        const result *r = &res[s];
+        const result *r = &runs[s].r;
         printf("ratio species=%s scalar_over_poly_cp=%.3f batch_over_poly_cp=%.3f "
                "scalar_over_poly_h=%.3f scalar_over_exp=%.3f many_over_three=%.3f "
-               "fit_max_cp_rel=%.3g\n",
+               "scalar_over_poly_cp_ifelse=%.3f fit_max_cp_rel=%.3g\n",
                SPECIES[s].name, r->scalar / r->poly_cp, r->batch / r->poly_cp,
                r->scalar / r->poly_h, r->scalar / r->expf, r->many / r->three,
-               r->fit_bench.cp_rel);
+               r->scalar / r->ifelse, r->fit_bench.cp_rel);
     }
     for (s = 0; s < NSPECIES; s++) {
-        const result *r = &res[s];
+        const result *r = &runs[s].r;
         printf("ns species=%s molq_scalar=%.2f molq_batch=%.2f poly_cp=%.3f "
-               "poly_h=%.3f exp_floor=%.3f molq_many_cphs=%.2f molq_three_cphs=%.2f\n",
+               "poly_h=%.3f exp_floor=%.3f molq_many_cphs=%.2f molq_three_cphs=%.2f "
+               "poly_cp_ifelse=%.3f\n",
                SPECIES[s].name, r->scalar, r->batch, r->poly_cp, r->poly_h,
-               r->expf, r->many, r->three);
+               r->expf, r->many, r->three, r->ifelse);
     }
 
-    molq_db_free(db);
     printf("\nverification: %s (batch == scalar, eval_many == 3 x eval, fit within "
            "%.1f %%, equipartition bounds, vibration data); run took %.1f s\n",
            failures ? "FAILED" : "passed", 100 * FIT_TOL_REL,
