@@ -322,15 +322,6 @@ static int load_sets(const char *path, sets *s)
         const char *at = strstr(err, "line ");
         fprintf(stderr, "molq: species file '%s': %s (%s)\n", path, err,
                 molq_status_string(st));
-        if (st == MOLQ_EIO) {
-            FILE *f;
-            errno = 0;
-            f = fopen(path, "rb");
-            if (f == NULL && errno != 0)
-                fprintf(stderr, "molq: %s: %s\n", path, strerror(errno));
-            if (f != NULL)
-                fclose(f);
-        }
         if (st == MOLQ_ESYNTAX && at != NULL &&
             sscanf(at, "line %ld, column %ld", &line, &col) == 2)
             show_file_line(path, line, col);
@@ -368,31 +359,16 @@ static const molq_species *find_species(const sets *s, const char *name)
     return NULL;
 }
 
-/* Structure, inferred from the modes: no rotation -> atom; otherwise the
- * high-temperature rotational heat capacity relative to the translational
- * one (2/3 for a linear rotor, 1 for a nonlinear one). */
 static const char *structure_of(const molq_species *sp)
 {
-    size_t i, n = molq_species_mode_count(sp), rot = n, tr = n;
-    double cv_rot, cv_tr;
-    for (i = 0; i < n; i++) {
-        molq_mode_kind k;
-        if (molq_species_mode_kind(sp, i, &k) != MOLQ_OK)
-            continue;
-        if (k == MOLQ_MODE_ROTATION)
-            rot = i;
-        else if (k == MOLQ_MODE_TRANSLATION)
-            tr = i;
-    }
-    if (rot == n)
+    switch (molq_species_structure(sp)) {
+    case MOLQ_LINEAR:
+        return "linear";
+    case MOLQ_NONLINEAR:
+        return "nonlinear";
+    default:
         return "atom";
-    if (tr == n ||
-        molq_eval_mode(sp, rot, 1e7, MOLQ_P_STANDARD, MOLQ_CV, &cv_rot) !=
-            MOLQ_OK ||
-        molq_eval_mode(sp, tr, 1e7, MOLQ_P_STANDARD, MOLQ_CV, &cv_tr) !=
-            MOLQ_OK)
-        return "molecule";
-    return cv_rot / cv_tr < 0.83 ? "linear" : "nonlinear";
+    }
 }
 
 /* ------------------------------------------------------------------------ */

@@ -318,6 +318,14 @@ MOLQ_API double molq_species_molar_mass(const molq_species *species);
  *         species is NULL.  Added in 0.1.0. */
 MOLQ_API int molq_species_has_formation_enthalpy(const molq_species *species);
 
+/* @return the structure of the species (MOLQ_ATOM if species is NULL).
+ *         Added in 0.1.0. */
+MOLQ_API molq_structure molq_species_structure(const molq_species *species);
+
+/* @return the rotation model of the species (MOLQ_ROTOR_CORRECTED for an
+ *         atom or a NULL species).  Added in 0.1.0. */
+MOLQ_API molq_rotor molq_species_rotor(const molq_species *species);
+
 /* @return the lowest temperature in K at which every model of the species
  *         is valid (0 when no model has a lower limit).  Evaluations below
  *         it return MOLQ_ERANGE.  Added in 0.1.0. */

@@ -1,5 +1,6 @@
 /* Species databases: read JSON (lib/data), validate and build each species,
  * reject duplicate names.  All-or-nothing: on any error nothing survives. */
+#include <errno.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -83,7 +84,8 @@ molq_status molq_db_read_file(const char *path, molq_db **out, char *err,
     }
     f = fopen(path, "rb");
     if (f == NULL) {
-        molq_errf(err, errlen, "%s: cannot open for reading", path);
+        molq_errf(err, errlen, "%s: cannot open for reading: %s", path,
+                  strerror(errno));
         return MOLQ_EIO;
     }
     buf = malloc(cap);
@@ -93,10 +95,8 @@ molq_status molq_db_read_file(const char *path, molq_db **out, char *err,
             break;
         if (len == cap) {
             char *nb = realloc(buf, cap * 2);
-            if (nb == NULL) {
+            if (nb == NULL)
                 free(buf);
-                buf = NULL;
-            }
             buf = nb;
             cap *= 2;
         }

@@ -54,6 +54,16 @@ int molq_species_has_formation_enthalpy(const molq_species *sp)
     return sp ? sp->has_formation_enthalpy : 0;
 }
 
+molq_structure molq_species_structure(const molq_species *sp)
+{
+    return sp ? sp->structure : MOLQ_ATOM;
+}
+
+molq_rotor molq_species_rotor(const molq_species *sp)
+{
+    return sp ? sp->rotor : MOLQ_ROTOR_CORRECTED;
+}
+
 double molq_species_t_min(const molq_species *sp)
 {
     return sp ? sp->t_min : 0.0;

@@ -296,8 +296,8 @@ molq_status molq_json_read_specs(const char *text, size_t len,
     }
     root = json_loadb(text, len, JSON_REJECT_DUPLICATES, &jerr);
     if (root == NULL) {
-        molq_errf(err, errlen, "species file: line %d, column %d: %s",
-                  jerr.line, jerr.column, jerr.text);
+        molq_errf(err, errlen, "species file: line %d, column %d (byte %d): "
+                  "%s", jerr.line, jerr.column, jerr.position, jerr.text);
         return MOLQ_ESYNTAX;
     }
     list = json_is_object(root) ? json_object_get(root, "species") : NULL;

@@ -45,6 +45,8 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
     }
 
     sp->molar_mass = molar_mass;
+    sp->structure = (molq_structure)spec->structure;
+    sp->rotor = (molq_rotor)spec->rotor;
     sp->has_formation_enthalpy = spec->has_formation_enthalpy;
     sp->formation_enthalpy =
         spec->has_formation_enthalpy ? spec->formation_enthalpy : 0.0;

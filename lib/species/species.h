@@ -14,6 +14,8 @@ struct molq_species_s {
     char *formula;
     char *source;
     double molar_mass; /* kg/mol */
+    molq_structure structure;
+    molq_rotor rotor;
     int has_formation_enthalpy;
     double formation_enthalpy; /* J/mol at 298.15 K (0 when absent) */
     double h298_minus_h0;      /* J/mol, filled by molq_thermo_prepare */
