@@ -7,7 +7,9 @@ Search order for the shared library:
    silently picking up another copy;
 2. a build tree of the source checkout this package sits in:
    ``<checkout>/build*/lib/libmolq.so`` where ``<checkout>`` is two levels
-   above ``bindings/python``, newest first;
+   above ``bindings/python``, newest first, skipping sanitiser builds
+   (a build directory whose name contains ``san``, such as ``build-asan``:
+   an instrumented library cannot be loaded into an uninstrumented Python);
 3. ``ctypes.util.find_library("molq")``, then ``libmolq.so.0`` through the
    dynamic loader's usual search path.
 """
@@ -34,7 +36,9 @@ def _candidates(checkout=_CHECKOUT):
     for path in sorted(glob.glob(os.path.join(checkout, "build*", "lib",
                                               "libmolq.so")),
                        key=_mtime, reverse=True):
-        yield path
+        build_dir = os.path.basename(os.path.dirname(os.path.dirname(path)))
+        if "san" not in build_dir:
+            yield path
     found = ctypes.util.find_library("molq")
     if found:
         yield found
