@@ -14,6 +14,12 @@ void molq_cumulants_levels(const double *theta, const double *g, size_t n,
 {
     double tmin = theta[0], q = 0.0, m1 = 0.0, m2 = 0.0, m3 = 0.0;
     size_t i;
+    if (n == 1) { /* one level: q = g exp(-x), no fluctuation */
+        out->lnq = log(g[0]) - theta[0] / T;
+        out->k1 = theta[0] / T;
+        out->k2 = out->k3 = 0.0;
+        return;
+    }
     for (i = 1; i < n; i++)
         if (theta[i] < tmin)
             tmin = theta[i];
@@ -42,7 +48,7 @@ void molq_cumulants_levels(const double *theta, const double *g, size_t n,
 }
 
 void molq_cumulants_series(const double *c, size_t n, double y,
-                           molq_cumulants *out)
+                           unsigned need, molq_cumulants *out)
 {
     /* P0 = f, P1 = D f, P2 = D^2 f, P3 = D^3 f with D = y d/dy: the term
      * c y^i contributes c y^i i^m to D^m f. */
@@ -63,7 +69,7 @@ void molq_cumulants_series(const double *c, size_t n, double y,
     h1 = p1 / p0;
     h2 = p2 / p0 - h1 * h1;
     h3 = p3 / p0 - 3.0 * h1 * (p2 / p0) + 2.0 * h1 * h1 * h1;
-    out->lnq = log(p0);
+    out->lnq = (need & MOLQ_NEED_LNQ) ? log(p0) : 0.0;
     out->k1 = -h1;
     out->k2 = h2 - h1;
     out->k3 = -(h3 - 3.0 * h2 + 2.0 * h1);
@@ -72,12 +78,19 @@ void molq_cumulants_series(const double *c, size_t n, double y,
 void molq_cumulants_add_harmonic(double x, double d, unsigned need,
                                  molq_cumulants *acc)
 {
-    double e = exp(-x);
-    double om, r;
+    double e, om, r;
+    /* One exponential: 1 - e from expm1 where e is near 1, e from exp where
+     * 1 - e >= 1/2; either way both are accurate to rounding. */
+    if (x < 0.7) {
+        om = -expm1(-x);
+        e = 1.0 - om;
+    } else {
+        e = exp(-x);
+        om = 1.0 - e;
+    }
     if (e == 0.0)
         return; /* frozen mode: q = 1, no energy, no fluctuation */
-    om = -expm1(-x); /* 1 - e without cancellation */
-    r = x * e / om;  /* k1 of the mode */
+    r = x * e / om; /* k1 of the mode */
     acc->k1 += d * r;
     acc->k2 += d * r * x / om;
     if (need & MOLQ_NEED_LNQ)

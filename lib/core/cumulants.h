@@ -30,9 +30,10 @@ void molq_cumulants_levels(const double *theta, const double *g, size_t n,
 
 /* A correction factor f = 1 + c[0] y + c[1] y^2 + ... + c[n-1] y^n where
  * y is proportional to 1/T (so y d/dy = d/d ln beta).  Requires f > 0.
- * Writes the cumulants of ln f, analytically. */
+ * Writes the cumulants of ln f, analytically (ln f itself only when
+ * need has MOLQ_NEED_LNQ; 0 otherwise). */
 void molq_cumulants_series(const double *c, size_t n, double y,
-                           molq_cumulants *out);
+                           unsigned need, molq_cumulants *out);
 
 /* One harmonic oscillator with x = Theta/T, times weight d (degeneracy),
  * added to acc.  Uses exp(-x) and expm1 only; finite for any x >= 0

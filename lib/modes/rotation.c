@@ -73,9 +73,9 @@ static void eval_rotation(const molq_mode *m, double T, double p,
     if (!r->classical) {
         molq_cumulants c;
         if (r->linear)
-            molq_cumulants_series(linear_series, 5, r->theta / T, &c);
+            molq_cumulants_series(linear_series, 5, r->theta / T, need, &c);
         else
-            molq_cumulants_series(&r->corr, 1, 1.0 / T, &c);
+            molq_cumulants_series(&r->corr, 1, 1.0 / T, need, &c);
         out->lnq += c.lnq;
         out->k1 += c.k1;
         out->k2 += c.k2;
