@@ -32,7 +32,7 @@ if [ "$base_soname" != "$lib_soname" ]; then
 fi
 
 report=$(mktemp)
-trap 'rm -f "$report"' EXIT
+trap 'rm -f "$report" "$report.x"' EXIT
 # abidiff exit status is a bit set: 1 error, 2 usage error, 4 ABI change,
 # 8 incompatible ABI change.  Additions alone set bit 4 too, and so do type
 # changes abidiff cannot prove incompatible (size_t -> int in a parameter,
@@ -69,8 +69,25 @@ fi
 abidiff "$@" >"$report" 2>&1
 full=$?
 if [ $((full & 4)) -ne 0 ]; then
+    abi_experimental_suppr "$report.x"
+    rm -f "$report.x"
     echo "abi: compatible additions since the baseline:"
-    grep -e '^  \[A\]' "$report" | sed 's/^  //'
+    grep -e '^  \[A\]' "$report" | sed 's/^  //' |
+        awk -v x=" $EXPERIMENTAL_NAMES " '{
+            n = $0; sub(/.*[{]/, "", n); sub(/@.*/, "", n)
+            print $0 (index(x, " " n " ") ? "  (experimental: not promised)" : "")
+        }'
 fi
+# Additions into a symbol node the baseline already has: harmless before the
+# first release of that node, but once it has shipped new functions belong in
+# a new node, so that a program needing them fails at load time with a clear
+# version error against an older libmolq instead of at its first call.
+nodes=$(sed -n "s/.*<elf-symbol .* version='\([^']*\)'.*/\1/p" "$BASELINE" | sort -u)
+for node in $nodes; do
+    re=$(printf '%s' "$node" | sed 's/\./\\./g')
+    n=$(grep -c -e "^  \[A\] .*@@$re}\$" -e "^  \[A\] [a-z_0-9]*@@$re\$" "$report" || true)
+    [ "$n" -gt 0 ] && echo "abi: note: $n addition(s) in node $node, which the baseline already" \
+        "has: fine until $node ships; after a release add a new node (see abi/README.md)"
+done
 echo "abi: OK: $LIB ($lib_soname) is compatible with abi/libmolq.abi"
 exit 0

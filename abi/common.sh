@@ -87,7 +87,7 @@ abi_experimental_suppr() { # OUT
         sed 's/.*\(molq_[A-Za-z0-9_]*\)[ \t]*(/\1/' | sort -u)
     : >"$1"
     for n in $names; do
-        printf '[suppress_function]\n  name = %s\n  drop = yes\n\n' "$n" >>"$1"
+        printf '[suppress_function]\n  symbol_name = %s\n  drop = yes\n\n' "$n" >>"$1"
     done
     EXPERIMENTAL_NAMES=$names
 }
