@@ -69,7 +69,7 @@ static const struct ref298 {
 START_TEST(standard_values_298)
 {
     const struct ref298 *r = &refs[_i];
-    const molq_species *sp = tu_species(r->name);
+    const molq_species *sp = tu_species_model(r->name, MOLQ_MODEL_RRHO);
     double s = tu_eval(sp, 298.15, 1e5, MOLQ_S);
     double cp = tu_eval(sp, 298.15, 1e5, MOLQ_CP);
     ck_assert_msg(fabs(s - r->s_janaf) <= r->tol_s, "%s s %.4f vs JANAF %.3f",
@@ -91,7 +91,7 @@ static const char *const molecules[] = {"N2", "CO", "O2", "CO2", "H2O"};
 START_TEST(rrho_reach_over_tables)
 {
     const char *name = molecules[_i];
-    const molq_species *sp = tu_species(name);
+    const molq_species *sp = tu_species_model(name, MOLQ_MODEL_RRHO);
     tu_table t;
     size_t i;
     tu_read_janaf(name, &t);
@@ -112,34 +112,47 @@ START_TEST(rrho_reach_over_tables)
 }
 END_TEST
 
-/* Report (always passes its own table through the checks above): the
- * largest deviation per species and band, so the reach of the model is
- * visible in the test log. */
+/* Report: the largest deviation per species, model and band, so the gain
+ * of each model is visible in the test log (the checks above and in
+ * test_levels.c are what pass or fail). */
 START_TEST(deviation_report)
 {
     static const char *const all[] = {"Ar", "N2", "CO", "O2", "CO2", "H2O",
                                       "H2"};
     static const double band[][2] = {{100, 300}, {300, 1000}, {1000, 3000},
                                      {3000, 6000}};
+    static const char *const model_name[] = {"rrho", "levels"};
     size_t k, b, i;
-    printf("\nlargest |molq - JANAF| per band, model: RRHO (starter data)\n");
-    printf("%-4s %-11s %9s %8s %9s\n", "", "T band, K", "cp", "cp %", "s");
+    int m;
+    printf("\nlargest |molq - JANAF| per band (NIST-JANAF 1998)\n");
+    printf("%-4s %-7s %-11s %9s %8s %9s\n", "", "model", "T band, K", "cp",
+           "cp %", "s");
     for (k = 0; k < sizeof all / sizeof all[0]; k++) {
-        const molq_species *sp = tu_species(all[k]);
         tu_table t;
         tu_read_janaf(all[k], &t);
-        for (b = 0; b < 4; b++) {
-            double dcp = 0, rcp = 0, ds = 0;
-            for (i = 0; i < t.n; i++)
-                if (t.T[i] >= band[b][0] && t.T[i] <= band[b][1]) {
-                    double cp = tu_eval(sp, t.T[i], 1e5, MOLQ_CP);
-                    double s = tu_eval(sp, t.T[i], 1e5, MOLQ_S);
-                    dcp = fmax(dcp, fabs(cp - t.cp[i]));
-                    rcp = fmax(rcp, fabs(cp / t.cp[i] - 1));
-                    ds = fmax(ds, fabs(s - t.s[i]));
-                }
-            printf("%-4s %4.0f-%-6.0f %9.4f %7.2f%% %9.4f\n", all[k],
-                   band[b][0], band[b][1], dcp, 100 * rcp, ds);
+        for (m = MOLQ_MODEL_RRHO; m <= MOLQ_MODEL_LEVELS; m++) {
+            const molq_species *sp;
+            molq_species *own = NULL;
+            char err[256];
+            if (molq_species_with_model(tu_species(all[k]), (molq_model)m,
+                                        &own, err, sizeof err) != MOLQ_OK)
+                continue; /* model not available for this species */
+            sp = own;
+            for (b = 0; b < 4; b++) {
+                double dcp = 0, rcp = 0, ds = 0;
+                for (i = 0; i < t.n; i++)
+                    if (t.T[i] >= band[b][0] && t.T[i] <= band[b][1]) {
+                        double cp = tu_eval(sp, t.T[i], 1e5, MOLQ_CP);
+                        double s = tu_eval(sp, t.T[i], 1e5, MOLQ_S);
+                        dcp = fmax(dcp, fabs(cp - t.cp[i]));
+                        rcp = fmax(rcp, fabs(cp / t.cp[i] - 1));
+                        ds = fmax(ds, fabs(s - t.s[i]));
+                    }
+                printf("%-4s %-7s %4.0f-%-6.0f %9.4f %7.2f%% %9.4f\n", all[k],
+                       model_name[m], band[b][0], band[b][1], dcp, 100 * rcp,
+                       ds);
+            }
+            molq_species_free(own);
         }
     }
 }

@@ -112,7 +112,7 @@ static size_t mode_index(const molq_species *sp, molq_mode_kind kind)
  * s/R = x/(e^x - 1) - ln(1 - e^-x). */
 START_TEST(harmonic_mode_curves)
 {
-    const molq_species *sp = tu_species("N2");
+    const molq_species *sp = tu_species_model("N2", MOLQ_MODEL_RRHO);
     size_t iv = mode_index(sp, MOLQ_MODE_VIBRATION);
     double theta = T_C2 * 2329.915; /* N2 fundamental in data/species.json */
     double T;

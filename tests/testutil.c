@@ -23,6 +23,29 @@ const molq_species *tu_species(const char *name)
     return sp;
 }
 
+const molq_species *tu_species_model(const char *name, molq_model model)
+{
+    static struct {
+        const char *name;
+        molq_model model;
+        molq_species *sp;
+    } cache[32];
+    static size_t n;
+    char err[256];
+    size_t i;
+    for (i = 0; i < n; i++)
+        if (strcmp(cache[i].name, name) == 0 && cache[i].model == model)
+            return cache[i].sp;
+    ck_assert_uint_lt(n, 32);
+    ck_assert_msg(molq_species_with_model(tu_species(name), model,
+                                          &cache[n].sp, err,
+                                          sizeof err) == MOLQ_OK,
+                  "%s: %s", name, err);
+    cache[n].name = name;
+    cache[n].model = model;
+    return cache[n++].sp;
+}
+
 double tu_eval(const molq_species *sp, double T, double p, molq_property prop)
 {
     double v = NAN;

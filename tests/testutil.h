@@ -22,6 +22,9 @@
 const molq_db *tu_builtin(void);
 const molq_species *tu_species(const char *name);
 
+/* A built-in species rebuilt with another model (cached per process). */
+const molq_species *tu_species_model(const char *name, molq_model model);
+
 /* Evaluate or fail the test. */
 double tu_eval(const molq_species *sp, double T, double p, molq_property prop);
 

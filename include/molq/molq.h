@@ -205,6 +205,23 @@ typedef enum molq_rotor {
     MOLQ_ROTOR_CLASSICAL = 1
 } molq_rotor;
 
+/* Model of the internal degrees of freedom.  Added in 0.1.0.
+ * MOLQ_MODEL_RRHO: rigid rotor (see molq_rotor), harmonic vibrations and
+ *   an electronic level list: fast, good near room temperature.
+ * MOLQ_MODEL_LEVELS: diatomics only.  Explicit sum over the bound
+ *   ro-vibrational levels of every electronic state, term values from
+ *   Dunham coefficients Y_kl (or the spectroscopic constants they stand
+ *   for), each vibrational ladder stopped at the dissociation energy and
+ *   each rotational ladder where the centrifugal term turns it over or it
+ *   crosses the dissociation limit; rotational levels weighted by nuclear
+ *   spin statistics (molq_spec_set_rotational_weights), in equilibrium or
+ *   as a frozen even/odd mixture.  The method of the published reference
+ *   tables for diatomics; costs one exp per populated level. */
+typedef enum molq_model {
+    MOLQ_MODEL_RRHO = 0,
+    MOLQ_MODEL_LEVELS = 1
+} molq_model;
+
 /* A mutable description of one species, filled field by field and turned
  * into an immutable molq_species by molq_species_create.  Setters store
  * values without judging them; all validation happens in
@@ -281,6 +298,58 @@ MOLQ_API molq_status molq_spec_add_electronic_level(molq_spec *spec,
 MOLQ_API molq_status molq_spec_set_formation_enthalpy(molq_spec *spec,
                                                       double j_per_mol);
 
+/* Choose the model (default: MOLQ_MODEL_LEVELS when diatomic states are
+ * given, MOLQ_MODEL_RRHO otherwise).  @return MOLQ_OK or MOLQ_EARG.
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_model(molq_spec *spec, molq_model model);
+
+/* Append an electronic state of a diatomic for MOLQ_MODEL_LEVELS: term
+ * energy Te of its potential minimum above that of the ground state, cm^-1
+ * (the ground state has Te = 0), and its electronic degeneracy (spin and
+ * Lambda doubling, e.g. 3 for a 3Sigma state, 2 for a 1Delta state).  Its
+ * term values are set with molq_spec_set_dunham.  *index (may be NULL)
+ * receives the state's index.  @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM,
+ * MOLQ_ELIMIT (more than 32 states).  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_add_diatomic_state(molq_spec *spec,
+                                                  double te_cm1,
+                                                  int degeneracy,
+                                                  size_t *index);
+
+/* Set the Dunham coefficient Y_kl (cm^-1) of a state:
+ * E(v, J) = Te + sum_kl Y_kl (v + 1/2)^k [J(J+1)]^l, k < 6, l < 4.
+ * In the usual notation Y10 = we, Y20 = -wexe, Y30 = weye, Y40 = weze,
+ * Y01 = Be, Y11 = -alpha_e, Y21 = gamma_e, Y02 = -De, Y12 = -beta_e,
+ * Y03 = He.  @return MOLQ_OK or MOLQ_EARG (bad index or power).
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_dunham(molq_spec *spec, size_t state,
+                                          unsigned k, unsigned l,
+                                          double y_cm1);
+
+/* Weights of the even- and odd-J rotational levels of a state on the
+ * conventional scale (nuclear-spin entropy excluded): the nuclear-spin
+ * degeneracy of the level divided by (2I+1)^2.  H2: 1/4 and 3/4; 14N2:
+ * 2/3 and 1/3; 16O2 ground state: 0 and 1 (only odd N exist).  Default:
+ * 1/sigma for both, which is exact for heteronuclear molecules.
+ * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_rotational_weights(molq_spec *spec,
+                                                      size_t state,
+                                                      double even,
+                                                      double odd);
+
+/* Dissociation energy D0 of the ground state from its lowest level, cm^-1;
+ * required by MOLQ_MODEL_LEVELS (every state's levels stop at this energy
+ * above the ground level).  @return MOLQ_OK or MOLQ_EARG.  Added 0.1.0. */
+MOLQ_API molq_status molq_spec_set_dissociation_energy(molq_spec *spec,
+                                                       double d0_cm1);
+
+/* Treat even- and odd-J molecules as a frozen mixture (no conversion on
+ * the time scale of interest, e.g. normal hydrogen, odd_fraction = 0.75)
+ * instead of the default equilibrium.  odd_fraction in (0, 1) is the mole
+ * fraction of molecules in odd-J levels.  @return MOLQ_OK or MOLQ_EARG.
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_spin_isomers_frozen(molq_spec *spec,
+                                                       double odd_fraction);
+
 /* Validate a description and build an immutable species from it.
  * On failure nothing is allocated, *out is untouched and err names the
  * species and field ("species 'X': field 'symmetry_number': ...").
@@ -325,6 +394,23 @@ MOLQ_API molq_structure molq_species_structure(const molq_species *species);
 /* @return the rotation model of the species (MOLQ_ROTOR_CORRECTED for an
  *         atom or a NULL species).  Added in 0.1.0. */
 MOLQ_API molq_rotor molq_species_rotor(const molq_species *species);
+
+/* @return the model the species was built with (MOLQ_MODEL_RRHO for a
+ *         NULL species).  Added in 0.1.0. */
+MOLQ_API molq_model molq_species_model(const molq_species *species);
+
+/* Build a new species from the same description with another model, e.g.
+ * to compare rigid-rotor/harmonic and level-sum results side by side.  For
+ * MOLQ_MODEL_RRHO a diatomic given only by its states gets B0 and the
+ * fundamental G(1) - G(0) of the ground state and the states' v = 0 levels
+ * as electronic levels.  @return as molq_species_create (MOLQ_EVALUE
+ * naming the missing field when the data do not support the model).
+ * Ownership: *out is the caller's; free with molq_species_free.
+ * Thread-safe.  Added in 0.1.0. */
+MOLQ_API molq_status molq_species_with_model(const molq_species *species,
+                                             molq_model model,
+                                             molq_species **out, char *err,
+                                             size_t errlen);
 
 /* @return the lowest temperature in K at which every model of the species
  *         is valid (0 when no model has a lower limit).  Evaluations below
@@ -371,6 +457,18 @@ MOLQ_API molq_status molq_eval_per_mass(const molq_species *species,
                                         double T, double p,
                                         molq_property prop, double *out);
 
+/* Ortho-para conversion enthalpy at T, J/mol: h of the frozen even/odd
+ * mixture minus h in spin equilibrium, i.e. the heat released per mole when
+ * the mixture relaxes to equilibrium at T (positive where conversion is
+ * exothermic, e.g. normal hydrogen at 20 K).  The frozen mixture is the
+ * species' own (molq_spec_set_spin_isomers_frozen) or, for an equilibrium
+ * species, the high-temperature one (odd fraction w_odd/(w_even + w_odd) of
+ * the ground state).  0 for species without distinct even/odd weights.
+ * @return MOLQ_OK, MOLQ_EARG (NULL, or a species not using
+ * MOLQ_MODEL_LEVELS), MOLQ_EDOMAIN.  Added in 0.1.0. */
+MOLQ_API molq_status molq_eval_spin_conversion(const molq_species *species,
+                                               double T, double *out);
+
 /* ------------------------------------------------------------------------ */
 /* Per-mode breakdown                                                       */
 /* ------------------------------------------------------------------------ */
@@ -381,7 +479,9 @@ typedef enum molq_mode_kind {
     MOLQ_MODE_TRANSLATION = 0,
     MOLQ_MODE_ROTATION = 1,
     MOLQ_MODE_VIBRATION = 2,   /* all harmonic vibrational modes together */
-    MOLQ_MODE_ELECTRONIC = 3
+    MOLQ_MODE_ELECTRONIC = 3,
+    MOLQ_MODE_ROVIBRONIC = 4   /* diatomic level sum over all electronic
+                                  states (MOLQ_MODEL_LEVELS) */
 } molq_mode_kind;
 
 /* @return the number of modes of a species (0 if species is NULL). */

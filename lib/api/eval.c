@@ -106,3 +106,21 @@ molq_status molq_eval_mode(const molq_species *sp, size_t index, double T,
     *out = v;
     return MOLQ_OK;
 }
+
+molq_status molq_eval_spin_conversion(const molq_species *sp, double T,
+                                      double *out)
+{
+    molq_status st;
+    size_t i;
+    if (sp == NULL || out == NULL)
+        return MOLQ_EARG;
+    if ((st = check_state(sp, T, MOLQ_P_STANDARD)) != MOLQ_OK)
+        return st;
+    for (i = 0; i < sp->nmodes; i++)
+        if (sp->modes[i].kind == MOLQ_MODE_ROVIBRONIC) {
+            double v = molq_thermo_spin_conversion(sp, i, T);
+            return check_finite(&v, 1) == MOLQ_OK ? (*out = v, MOLQ_OK)
+                                                  : MOLQ_ERANGE;
+        }
+    return MOLQ_EARG;
+}

@@ -15,13 +15,37 @@ molq_status molq_species_create(const molq_spec *spec, molq_species **out,
     }
     if ((st = molq_spec_validate(spec, &mass, err, errlen)) != MOLQ_OK)
         return st;
-    if ((st = molq_species_build(spec, mass, &sp)) != MOLQ_OK) {
-        molq_errf(err, errlen, "species '%s': out of memory", spec->name);
+    if ((st = molq_species_build(spec, mass, molq_spec_default_model(spec),
+                                 &sp, err, errlen)) != MOLQ_OK)
         return st;
-    }
     molq_thermo_prepare(sp);
     *out = sp;
     return MOLQ_OK;
+}
+
+molq_status molq_species_with_model(const molq_species *species,
+                                    molq_model model, molq_species **out,
+                                    char *err, size_t errlen)
+{
+    molq_species *sp;
+    molq_status st;
+    if (species == NULL || out == NULL ||
+        (model != MOLQ_MODEL_RRHO && model != MOLQ_MODEL_LEVELS)) {
+        molq_errf(err, errlen, "molq_species_with_model: bad argument");
+        return MOLQ_EARG;
+    }
+    st = molq_species_build(species->spec, species->molar_mass, model, &sp,
+                            err, errlen);
+    if (st != MOLQ_OK)
+        return st;
+    molq_thermo_prepare(sp);
+    *out = sp;
+    return MOLQ_OK;
+}
+
+molq_model molq_species_model(const molq_species *sp)
+{
+    return sp ? sp->model : MOLQ_MODEL_RRHO;
 }
 
 void molq_species_free(molq_species *species)

@@ -7,7 +7,15 @@
  * rotor ("corrected" | "classical"), vibrations (array of {"wavenumber":
  * cm^-1, "degeneracy": integer, default 1}), electronic_levels (array of
  * {"energy": cm^-1, "degeneracy": integer, default 1}),
- * formation_enthalpy_298 (number, J/mol), source (string). */
+ * formation_enthalpy_298 (number, J/mol), source (string),
+ * model ("rrho" | "levels"), dissociation_energy (number, cm^-1),
+ * spin_isomers ("equilibrium" | "frozen"), odd_fraction (number),
+ * diatomic_states (array of STATE).
+ * STATE keys: label (string), Te (cm^-1, required), degeneracy (integer,
+ * default 1), rotational_weights ([even, odd]), and the term values either
+ * as named constants we, wexe, weye, weze, Be, alpha_e, gamma_e, De,
+ * beta_e, He (cm^-1) or as "dunham": [[Y00, Y01, ...], [Y10, Y11, ...], ...]
+ * (row k = power of v + 1/2, column l = power of J(J+1)). */
 #include <jansson.h>
 #include <stdlib.h>
 #include <string.h>
@@ -126,7 +134,171 @@ static molq_status read_pairs(ctx *c, molq_spec *s, json_t *arr,
 static const char *const entry_keys[] = {
     "name", "formula", "molar_mass", "structure", "symmetry_number",
     "rotational_constants", "rotor", "vibrations", "electronic_levels",
-    "formation_enthalpy_298", "source", NULL};
+    "formation_enthalpy_298", "source", "model", "dissociation_energy",
+    "spin_isomers", "odd_fraction", "diatomic_states", NULL};
+
+/* Named spectroscopic constants: key, Dunham indices, sign. */
+static const struct {
+    const char *key;
+    int k, l;
+    double sign;
+} named[] = {
+    {"we", 1, 0, 1.0},      {"wexe", 2, 0, -1.0},    {"weye", 3, 0, 1.0},
+    {"weze", 4, 0, 1.0},    {"Be", 0, 1, 1.0},       {"alpha_e", 1, 1, -1.0},
+    {"gamma_e", 2, 1, 1.0}, {"De", 0, 2, -1.0},      {"beta_e", 1, 2, -1.0},
+    {"He", 0, 3, 1.0},
+};
+#define NNAMED (sizeof named / sizeof named[0])
+
+static const char *const state_keys[] = {
+    "label", "Te", "degeneracy", "rotational_weights", "dunham", "we", "wexe",
+    "weye", "weze", "Be", "alpha_e", "gamma_e", "De", "beta_e", "He", NULL};
+
+static molq_status read_dunham(ctx *c, molq_spec *s, size_t idx, json_t *m,
+                               const char *field)
+{
+    size_t k, l;
+    json_t *row, *v;
+    if (!json_is_array(m) || json_array_size(m) > MOLQ_DUNHAM_K)
+        return key_error(c, MOLQ_ETYPE, field, "expected an array of at most "
+                         "6 rows (powers of v + 1/2) of at most 4 numbers "
+                         "(powers of J(J+1))");
+    json_array_foreach(m, k, row) {
+        if (!json_is_array(row) || json_array_size(row) > MOLQ_DUNHAM_L)
+            return key_error(c, MOLQ_ETYPE, field, "each row must be an array "
+                             "of at most 4 numbers");
+        json_array_foreach(row, l, v) {
+            double y;
+            molq_status st = get_number(c, v, field, &y);
+            if (st != MOLQ_OK)
+                return st;
+            molq_spec_set_dunham(s, idx, (unsigned)k, (unsigned)l, y);
+        }
+    }
+    return MOLQ_OK;
+}
+
+static molq_status read_state(ctx *c, molq_spec *s, json_t *e, size_t i)
+{
+    char name[96], where[48];
+    json_t *v;
+    molq_status st;
+    double te, x;
+    int g = 1, have_named = 0;
+    size_t idx, n;
+    snprintf(where, sizeof where, "diatomic_states[%zu].", i);
+    if (!json_is_object(e))
+        return key_error(c, MOLQ_ETYPE, "diatomic_states",
+                         "expected an array of objects");
+    if ((st = check_keys(c, e, state_keys, where)) != MOLQ_OK)
+        return st;
+    snprintf(name, sizeof name, "%sTe", where);
+    if ((v = json_object_get(e, "Te")) == NULL)
+        return key_error(c, MOLQ_EKEY, name, "missing (0 for the ground "
+                         "state)");
+    if ((st = get_number(c, v, name, &te)) != MOLQ_OK)
+        return st;
+    snprintf(name, sizeof name, "%sdegeneracy", where);
+    if ((v = json_object_get(e, "degeneracy")) != NULL &&
+        (st = get_int(c, v, name, &g)) != MOLQ_OK)
+        return st;
+    if ((st = molq_spec_add_diatomic_state(s, te, g, &idx)) != MOLQ_OK)
+        return st == MOLQ_ELIMIT
+                   ? key_error(c, st, "diatomic_states", "at most 32 states")
+                   : st;
+    for (n = 0; n < NNAMED; n++) {
+        if ((v = json_object_get(e, named[n].key)) == NULL)
+            continue;
+        snprintf(name, sizeof name, "%s%s", where, named[n].key);
+        if ((st = get_number(c, v, name, &x)) != MOLQ_OK)
+            return st;
+        molq_spec_set_dunham(s, idx, named[n].k, named[n].l, named[n].sign * x);
+        have_named = 1;
+    }
+    if ((v = json_object_get(e, "dunham")) != NULL) {
+        snprintf(name, sizeof name, "%sdunham", where);
+        if (have_named)
+            return key_error(c, MOLQ_EKEY, name, "give either the Dunham "
+                             "matrix or the named constants, not both");
+        if ((st = read_dunham(c, s, idx, v, name)) != MOLQ_OK)
+            return st;
+    }
+    if ((v = json_object_get(e, "rotational_weights")) != NULL) {
+        double w[2];
+        snprintf(name, sizeof name, "%srotational_weights", where);
+        if (!json_is_array(v) || json_array_size(v) != 2)
+            return key_error(c, MOLQ_ETYPE, name,
+                             "expected [even-J weight, odd-J weight]");
+        if ((st = get_number(c, json_array_get(v, 0), name, &w[0])) !=
+                MOLQ_OK ||
+            (st = get_number(c, json_array_get(v, 1), name, &w[1])) != MOLQ_OK)
+            return st;
+        molq_spec_set_rotational_weights(s, idx, w[0], w[1]);
+    }
+    if ((v = json_object_get(e, "label")) != NULL) {
+        const char *text;
+        snprintf(name, sizeof name, "%slabel", where);
+        if ((st = get_string(c, v, name, &text)) != MOLQ_OK)
+            return st;
+    }
+    return MOLQ_OK;
+}
+
+/* Keys of the level-sum model. */
+static molq_status read_levels_model(ctx *c, json_t *e, molq_spec *s)
+{
+    json_t *v, *item;
+    molq_status st;
+    const char *text;
+    double x;
+    size_t i;
+    if ((v = json_object_get(e, "model")) != NULL) {
+        if ((st = get_string(c, v, "model", &text)) != MOLQ_OK)
+            return st;
+        if (strcmp(text, "rrho") == 0)
+            molq_spec_set_model(s, MOLQ_MODEL_RRHO);
+        else if (strcmp(text, "levels") == 0)
+            molq_spec_set_model(s, MOLQ_MODEL_LEVELS);
+        else
+            return key_error(c, MOLQ_EVALUE, "model",
+                             "must be \"rrho\" or \"levels\"");
+    }
+    if ((v = json_object_get(e, "dissociation_energy")) != NULL) {
+        if ((st = get_number(c, v, "dissociation_energy", &x)) != MOLQ_OK)
+            return st;
+        molq_spec_set_dissociation_energy(s, x);
+    }
+    if ((v = json_object_get(e, "spin_isomers")) != NULL) {
+        if ((st = get_string(c, v, "spin_isomers", &text)) != MOLQ_OK)
+            return st;
+        if (strcmp(text, "frozen") == 0) {
+            item = json_object_get(e, "odd_fraction");
+            if (item == NULL)
+                return key_error(c, MOLQ_EKEY, "odd_fraction", "missing; a "
+                                 "frozen mixture needs its odd-J fraction "
+                                 "(0.75 for normal hydrogen)");
+            if ((st = get_number(c, item, "odd_fraction", &x)) != MOLQ_OK)
+                return st;
+            molq_spec_set_spin_isomers_frozen(s, x);
+        } else if (strcmp(text, "equilibrium") != 0) {
+            return key_error(c, MOLQ_EVALUE, "spin_isomers",
+                             "must be \"equilibrium\" or \"frozen\"");
+        }
+    }
+    if (json_object_get(e, "odd_fraction") != NULL && !s->spin_frozen)
+        return key_error(c, MOLQ_EKEY, "odd_fraction", "only meaningful with "
+                         "\"spin_isomers\": \"frozen\"");
+    if ((v = json_object_get(e, "diatomic_states")) != NULL) {
+        if (!json_is_array(v))
+            return key_error(c, MOLQ_ETYPE, "diatomic_states",
+                             "expected an array of objects");
+        json_array_foreach(v, i, item) {
+            if ((st = read_state(c, s, item, i)) != MOLQ_OK)
+                return st;
+        }
+    }
+    return MOLQ_OK;
+}
 
 static molq_status read_entry(ctx *c, json_t *e, molq_spec *s)
 {
@@ -214,7 +386,7 @@ static molq_status read_entry(ctx *c, json_t *e, molq_spec *s)
             return st;
         molq_spec_set_formation_enthalpy(s, x);
     }
-    return MOLQ_OK;
+    return read_levels_model(c, e, s);
 }
 
 void molq_specs_free(molq_spec **specs, size_t n)

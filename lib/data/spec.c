@@ -37,7 +37,141 @@ void molq_spec_free(molq_spec *s)
     free(s->vib_deg);
     free(s->el_e);
     free(s->el_g);
+    free(s->states);
     free(s);
+}
+
+static int copy_array(void **dst, const void *src, size_t bytes)
+{
+    if (bytes == 0 || src == NULL) {
+        *dst = NULL;
+        return 1;
+    }
+    *dst = malloc(bytes);
+    if (*dst != NULL)
+        memcpy(*dst, src, bytes);
+    return *dst != NULL;
+}
+
+molq_spec *molq_spec_clone(const molq_spec *s)
+{
+    molq_spec *c = malloc(sizeof *c);
+    int ok;
+    if (c == NULL)
+        return NULL;
+    *c = *s;
+    c->name = c->formula = c->source = NULL;
+    c->vib_wn = NULL;
+    c->vib_deg = NULL;
+    c->el_e = NULL;
+    c->el_g = NULL;
+    c->states = NULL;
+    c->cap_vib = c->nvib;
+    c->cap_el = c->nel;
+    ok = (c->name = molq_strdup(s->name)) != NULL &&
+         (s->formula == NULL || (c->formula = molq_strdup(s->formula))) &&
+         (s->source == NULL || (c->source = molq_strdup(s->source))) &&
+         copy_array((void **)&c->vib_wn, s->vib_wn, s->nvib * sizeof(double)) &&
+         copy_array((void **)&c->vib_deg, s->vib_deg, s->nvib * sizeof(int)) &&
+         copy_array((void **)&c->el_e, s->el_e, s->nel * sizeof(double)) &&
+         copy_array((void **)&c->el_g, s->el_g, s->nel * sizeof(int)) &&
+         copy_array((void **)&c->states, s->states,
+                    s->nstates * sizeof(molq_spec_state));
+    if (!ok) {
+        molq_spec_free(c);
+        return NULL;
+    }
+    return c;
+}
+
+void molq_spec_rovib_states(const molq_spec *s, molq_rovib_state *out)
+{
+    size_t i;
+    for (i = 0; i < s->nstates; i++) {
+        const molq_spec_state *d = &s->states[i];
+        out[i].te = d->te;
+        out[i].g = d->g;
+        out[i].w_even = d->has_weights ? d->w_even : 1.0 / s->sigma;
+        out[i].w_odd = d->has_weights ? d->w_odd : 1.0 / s->sigma;
+        memcpy(out[i].y, d->y, sizeof d->y);
+    }
+}
+
+molq_model molq_spec_default_model(const molq_spec *s)
+{
+    if (s->has_model)
+        return (molq_model)s->model;
+    return s->nstates > 0 ? MOLQ_MODEL_LEVELS : MOLQ_MODEL_RRHO;
+}
+
+molq_status molq_spec_set_model(molq_spec *s, molq_model model)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->model = (int)model;
+    s->has_model = 1;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_add_diatomic_state(molq_spec *s, double te_cm1,
+                                         int degeneracy, size_t *index)
+{
+    molq_spec_state *ns;
+    if (s == NULL)
+        return MOLQ_EARG;
+    if (s->nstates >= MOLQ_MAX_STATES)
+        return MOLQ_ELIMIT;
+    ns = realloc(s->states, (s->nstates + 1) * sizeof *ns);
+    if (ns == NULL)
+        return MOLQ_ENOMEM;
+    s->states = ns;
+    memset(&ns[s->nstates], 0, sizeof *ns);
+    ns[s->nstates].te = te_cm1;
+    ns[s->nstates].g = degeneracy;
+    if (index != NULL)
+        *index = s->nstates;
+    s->nstates++;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_dunham(molq_spec *s, size_t state, unsigned k,
+                                 unsigned l, double y_cm1)
+{
+    if (s == NULL || state >= s->nstates || k >= MOLQ_DUNHAM_K ||
+        l >= MOLQ_DUNHAM_L)
+        return MOLQ_EARG;
+    s->states[state].y[k][l] = y_cm1;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_rotational_weights(molq_spec *s, size_t state,
+                                             double even, double odd)
+{
+    if (s == NULL || state >= s->nstates)
+        return MOLQ_EARG;
+    s->states[state].w_even = even;
+    s->states[state].w_odd = odd;
+    s->states[state].has_weights = 1;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_dissociation_energy(molq_spec *s, double d0_cm1)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->d0 = d0_cm1;
+    s->has_d0 = 1;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_spin_isomers_frozen(molq_spec *s,
+                                              double odd_fraction)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->spin_frozen = 1;
+    s->odd_fraction = odd_fraction;
+    return MOLQ_OK;
 }
 
 static molq_status set_text(char **slot, const char *text)

@@ -6,6 +6,7 @@
 
 #include <stddef.h>
 
+#include "modes/modes.h" /* MOLQ_DUNHAM_K, MOLQ_DUNHAM_L */
 #include "molq/molq.h"
 
 /* Size limits (documented in the README, enforced with MOLQ_ELIMIT). */
@@ -14,6 +15,17 @@
 #define MOLQ_MAX_LEVELS 10000
 #define MOLQ_MAX_SPECIES 100000
 #define MOLQ_MAX_FILE_BYTES (64u * 1024u * 1024u)
+#define MOLQ_MAX_STATES 32
+#define MOLQ_MAX_ROVIB_LEVELS 400000 /* bound levels of one diatomic */
+
+/* One electronic state of a diatomic with its own term values. */
+typedef struct molq_spec_state {
+    double te;  /* term energy of the potential minimum, cm^-1 */
+    int g;      /* electronic degeneracy */
+    double y[MOLQ_DUNHAM_K][MOLQ_DUNHAM_L]; /* cm^-1 */
+    double w_even, w_odd; /* weights of even / odd rotational levels */
+    int has_weights;
+} molq_spec_state;
 
 struct molq_spec_s {
     char *name;
@@ -34,7 +46,26 @@ struct molq_spec_s {
     size_t nel, cap_el;
     double formation_enthalpy;
     int has_formation_enthalpy;
+    int model; /* molq_model */
+    int has_model;
+    molq_spec_state *states; /* diatomic electronic states (level sums) */
+    size_t nstates;
+    double d0; /* dissociation energy from the ground level, cm^-1 */
+    int has_d0;
+    int spin_frozen;     /* 1: frozen even/odd mixture, 0: equilibrium */
+    double odd_fraction; /* frozen: mole fraction in odd-J levels */
 };
+
+/* The states as the level generator takes them (default weights 1/sigma);
+ * out has room for s->nstates entries. */
+void molq_spec_rovib_states(const molq_spec *s, molq_rovib_state *out);
+
+/* Deep copy (NULL on allocation failure). */
+molq_spec *molq_spec_clone(const molq_spec *s);
+
+/* The model a validated spec builds by default: its "model" if set, else
+ * level sums when diatomic states are given, else RRHO. */
+molq_model molq_spec_default_model(const molq_spec *s);
 
 /* Check every field; on success *molar_mass receives the molar mass to use
  * (set, or computed from the formula), kg/mol.  Messages name the species

@@ -16,12 +16,87 @@
 static const size_t rot_count[3] = {0, 1, 3};
 static const char *const structure_name[3] = {"atom", "linear", "nonlinear"};
 
+/* Names of the Dunham entries in the usual notation, for messages. */
+static const char *dunham_name(int k, int l)
+{
+    static const char *const names[MOLQ_DUNHAM_K][MOLQ_DUNHAM_L] = {
+        {"Y00", "Be", "De", "He"},          {"we", "alpha_e", "beta_e", "Y13"},
+        {"wexe", "gamma_e", "Y22", "Y23"},  {"weye", "Y31", "Y32", "Y33"},
+        {"weze", "Y41", "Y42", "Y43"},      {"Y50", "Y51", "Y52", "Y53"}};
+    return names[k][l];
+}
+
+static molq_status validate_states(const molq_spec *s, char *err,
+                                   size_t errlen)
+{
+    const char *nm = s->name;
+    molq_rovib_state st[MOLQ_MAX_STATES];
+    size_t i, empty, count;
+    int k, l, ground = 0;
+    if (s->structure != MOLQ_LINEAR)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states': level sums "
+             "are for diatomics; the structure must be linear", nm);
+    if (!s->has_d0 || !isfinite(s->d0) || s->d0 <= 0.0)
+        FAIL(s->has_d0 ? MOLQ_EVALUE : MOLQ_EKEY, "species '%s': field "
+             "'dissociation_energy': %s (cm^-1 from the ground level, > 0; "
+             "it bounds every level ladder)", nm,
+             s->has_d0 ? "must be a finite number > 0" : "missing");
+    if (s->spin_frozen && !(s->odd_fraction > 0.0 && s->odd_fraction < 1.0))
+        FAIL(MOLQ_EVALUE, "species '%s': field 'odd_fraction': must lie "
+             "strictly between 0 and 1 (got %g)", nm, s->odd_fraction);
+    for (i = 0; i < s->nstates; i++) {
+        const molq_spec_state *d = &s->states[i];
+        if (!isfinite(d->te) || d->te < 0.0)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu].Te': "
+                 "must be a finite number >= 0 cm^-1 (got %g)", nm, i, d->te);
+        if (d->te == 0.0)
+            ground = 1;
+        if (d->g < 1)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
+                 "degeneracy': must be an integer >= 1 (got %d)", nm, i, d->g);
+        for (k = 0; k < MOLQ_DUNHAM_K; k++)
+            for (l = 0; l < MOLQ_DUNHAM_L; l++)
+                if (!isfinite(d->y[k][l]))
+                    FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states"
+                         "[%zu].%s': must be finite", nm, i, dunham_name(k, l));
+        if (!(d->y[1][0] > 0.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu].we': "
+                 "must be > 0 cm^-1 (got %g)", nm, i, d->y[1][0]);
+        if (!(d->y[0][1] > 0.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu].Be': "
+                 "must be > 0 cm^-1 (got %g)", nm, i, d->y[0][1]);
+        if (d->has_weights &&
+            (!isfinite(d->w_even) || !isfinite(d->w_odd) || d->w_even < 0.0 ||
+             d->w_odd < 0.0 || d->w_even + d->w_odd <= 0.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
+                 "rotational_weights': must be two finite numbers >= 0, not "
+                 "both 0 (got %g, %g)", nm, i, d->w_even, d->w_odd);
+    }
+    molq_spec_rovib_states(s, st);
+    if (!ground || s->states[0].te != 0.0)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[0].Te': the "
+             "first state is the ground state, Te = 0", nm);
+    count = molq_rovib_count(st, s->nstates, s->d0, MOLQ_MAX_ROVIB_LEVELS,
+                             &empty);
+    if (count == (size_t)-1)
+        FAIL(MOLQ_ELIMIT, "species '%s': field 'diatomic_states': more than %d "
+             "bound levels below 'dissociation_energy' (%g cm^-1); check the "
+             "constants: a ladder that does not turn over, or a dissociation "
+             "energy far too high", nm, MOLQ_MAX_ROVIB_LEVELS, s->d0);
+    if (empty < s->nstates)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]': no "
+             "level of this state lies below 'dissociation_energy' (%g "
+             "cm^-1)", nm, empty, s->d0);
+    return MOLQ_OK;
+}
+
 molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
                                char *err, size_t errlen)
 {
     const char *nm = s->name;
     size_t i, len = strlen(nm);
     int have_ground = 0;
+    molq_status rc;
 
     if (len == 0 || len > MOLQ_MAX_NAME)
         FAIL(MOLQ_EVALUE, "species '%.40s': field 'name': must be 1 to %d bytes "
@@ -55,7 +130,20 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
         FAIL(MOLQ_EVALUE, "species '%s': field 'symmetry_number': an atom has "
              "no rotation, so it must be 1 (got %d)", nm, s->sigma);
 
-    if (s->nrot != rot_count[s->structure])
+    if (s->nstates > 0 && (rc = validate_states(s, err, errlen)) != MOLQ_OK)
+        return rc;
+    if (s->model != MOLQ_MODEL_RRHO && s->model != MOLQ_MODEL_LEVELS)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'model': must be rrho or levels "
+             "(got code %d)", nm, s->model);
+    if (molq_spec_default_model(s) == MOLQ_MODEL_LEVELS && s->nstates == 0)
+        FAIL(MOLQ_EKEY, "species '%s': field 'diatomic_states': missing; the "
+             "levels model needs the term values of at least the ground "
+             "state", nm);
+
+    /* Rotational constants may be left out when a diatomic's states give
+     * them (the RRHO variant derives B0 from the ground state). */
+    if (!(s->nrot == 0 && s->nstates > 0) &&
+        s->nrot != rot_count[s->structure])
         FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants': a %s "
              "species needs %zu (got %zu)", nm, structure_name[s->structure],
              rot_count[s->structure], s->nrot);

@@ -33,6 +33,27 @@ typedef struct molq_rotation_params {
     double corr;       /* nonlinear first quantum correction c, K */
 } molq_rotation_params;
 
+/* Dunham coefficients Y_kl: E(v, J) = sum Y_kl (v + 1/2)^k [J(J+1)]^l. */
+#define MOLQ_DUNHAM_K 6 /* powers of (v + 1/2): 0 .. 5 */
+#define MOLQ_DUNHAM_L 4 /* powers of J(J+1): 0 .. 3 */
+
+/* One electronic state of a diatomic, as the level generator needs it
+ * (cm^-1; weights on the conventional scale). */
+typedef struct molq_rovib_state {
+    double te, g, w_even, w_odd;
+    double y[MOLQ_DUNHAM_K][MOLQ_DUNHAM_L];
+} molq_rovib_state;
+
+/* Bound levels of a diatomic, sorted by energy, split by J parity. */
+typedef struct molq_rovib_params {
+    size_t n[2];          /* [0] even J, [1] odd J */
+    const double *theta[2]; /* energies above the lowest level, K */
+    const double *w[2];     /* g * weight * (2J + 1) */
+    int frozen;             /* frozen even/odd mixture */
+    double x_odd;           /* odd mole fraction of the frozen mixture */
+    double x_odd_normal;    /* high-temperature odd fraction */
+} molq_rovib_params;
+
 typedef struct molq_levels_params {
     size_t n;
     const double *theta; /* level energies / k, K */
@@ -46,7 +67,9 @@ struct molq_mode {
         molq_translation_params tr;
         molq_rotation_params rot;
         molq_levels_params lev; /* vibration (harmonic) and electronic */
+        molq_rovib_params rv;
     } u;
+    void *owned; /* memory the mode allocated at init, freed with it */
 };
 
 /* Translation of a particle of molar mass M (kg/mol), Sackur-Tetrode. */
@@ -67,5 +90,24 @@ void molq_mode_vibration_init(molq_mode *m, size_t n, const double *theta,
  * g; the arrays must outlive the mode. */
 void molq_mode_electronic_init(molq_mode *m, size_t n, const double *theta,
                                const double *g);
+
+/* Walk the bound ro-vibrational levels of n states below d0 (cm^-1 above
+ * the ground state's v = 0, J = 0 term): each vibrational ladder stops at
+ * d0 or where it turns over, each rotational ladder likewise.  Returns the
+ * number of levels with non-zero weight, or (size_t)-1 as soon as it
+ * exceeds `limit`.  *empty receives the index of a state with no bound
+ * level, or n if every state has one. */
+size_t molq_rovib_count(const molq_rovib_state *st, size_t n, double d0,
+                        size_t limit, size_t *empty);
+
+/* Diatomic ro-vibrational level sum over all states (the counts must have
+ * been checked with molq_rovib_count).  frozen/x_odd select a frozen
+ * even/odd mixture.  Returns 0, or -1 on allocation failure. */
+int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
+                              size_t n, double d0, int frozen, double x_odd);
+
+/* k1(frozen) - k1(equilibrium) at T: the spin-isomer conversion energy in
+ * units of kT (frozen mixture: the mode's own, or the high-T one). */
+double molq_rovibronic_conversion(const molq_mode *m, double T);
 
 #endif

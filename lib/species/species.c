@@ -10,65 +10,183 @@ static char *dup_or_empty(const char *s)
     return molq_strdup(s != NULL ? s : "");
 }
 
+/* Term value G(v) + B_v J(J+1) terms of a state at J = 0 (cm^-1). */
+static double vib_term(const molq_spec_state *st, double vh)
+{
+    double e = 0.0, vk = 1.0;
+    int k;
+    for (k = 0; k < MOLQ_DUNHAM_K; k++) {
+        e += st->y[k][0] * vk;
+        vk *= vh;
+    }
+    return e;
+}
+
+/* B_v of a state (cm^-1). */
+static double b_v(const molq_spec_state *st, double vh)
+{
+    double b = 0.0, vk = 1.0;
+    int k;
+    for (k = 0; k < MOLQ_DUNHAM_K; k++) {
+        b += st->y[k][1] * vk;
+        vk *= vh;
+    }
+    return b;
+}
+
+/* RRHO inputs: explicit ones from the spec, or derived from the diatomic
+ * states (B0 and G(1) - G(0) of the ground state; each state's v = 0 level
+ * as an electronic level whose degeneracy folds in its spin weights). */
+typedef struct rrho_inputs {
+    double rot[3];
+    size_t nrot;
+    size_t nvib, nel;
+} rrho_inputs;
+
+static void rrho_inputs_of(const molq_spec *spec, rrho_inputs *r)
+{
+    size_t i;
+    r->nrot = spec->nrot;
+    for (i = 0; i < spec->nrot; i++)
+        r->rot[i] = spec->rot[i];
+    r->nvib = spec->nvib;
+    r->nel = spec->nel > 0 ? spec->nel : 1;
+    if (spec->nstates > 0 && spec->nrot == 0) {
+        r->rot[0] = b_v(&spec->states[0], 0.5);
+        r->nrot = 1;
+        if (spec->nvib == 0)
+            r->nvib = 1;
+        if (spec->nel == 0)
+            r->nel = spec->nstates;
+    }
+}
+
+static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
+                             double *vt, double *vg, double *et, double *eg)
+{
+    size_t i;
+    const molq_spec_state *x = spec->states;
+    if (spec->nvib > 0) {
+        for (i = 0; i < spec->nvib; i++) {
+            vt[i] = MOLQ_C2_CM_K * spec->vib_wn[i];
+            vg[i] = (double)spec->vib_deg[i];
+        }
+    } else if (r->nvib == 1) {
+        vt[0] = MOLQ_C2_CM_K * (vib_term(x, 1.5) - vib_term(x, 0.5));
+        vg[0] = 1.0;
+    }
+    if (spec->nel > 0) {
+        for (i = 0; i < spec->nel; i++) {
+            et[i] = MOLQ_C2_CM_K * spec->el_e[i];
+            eg[i] = (double)spec->el_g[i];
+        }
+    } else if (spec->nstates > 0) {
+        molq_rovib_state st[MOLQ_MAX_STATES];
+        molq_spec_rovib_states(spec, st);
+        for (i = 0; i < spec->nstates; i++) {
+            et[i] = MOLQ_C2_CM_K * (st[i].te + vib_term(&spec->states[i], 0.5) -
+                                    vib_term(x, 0.5));
+            eg[i] = st[i].g * spec->sigma * 0.5 * (st[i].w_even + st[i].w_odd);
+        }
+    } else {
+        et[0] = 0.0;
+        eg[0] = 1.0;
+    }
+}
+
+static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
+                              char *err, size_t errlen)
+{
+    rrho_inputs r;
+    double *vt, *vg, *et, *eg;
+    rrho_inputs_of(spec, &r);
+    if (spec->structure != MOLQ_ATOM && r.nrot == 0) {
+        molq_errf(err, errlen, "species '%s': field 'rotational_constants': "
+                  "missing, needed by the rrho model", spec->name);
+        return MOLQ_EVALUE;
+    }
+    sp->arrays = malloc(sizeof(double) * (2 * r.nvib + 2 * r.nel));
+    if (sp->arrays == NULL)
+        return MOLQ_ENOMEM;
+    vt = sp->arrays;
+    vg = vt + r.nvib;
+    et = vg + r.nvib;
+    eg = et + r.nel;
+    fill_rrho_arrays(spec, &r, vt, vg, et, eg);
+    if (spec->structure != MOLQ_ATOM)
+        molq_mode_rotation_init(&sp->modes[sp->nmodes++],
+                                spec->structure == MOLQ_LINEAR,
+                                spec->rotor == MOLQ_ROTOR_CLASSICAL,
+                                spec->sigma, r.rot, &sp->t_min);
+    if (r.nvib > 0)
+        molq_mode_vibration_init(&sp->modes[sp->nmodes++], r.nvib, vt, vg);
+    molq_mode_electronic_init(&sp->modes[sp->nmodes++], r.nel, et, eg);
+    return MOLQ_OK;
+}
+
+static molq_status build_levels(molq_species *sp, const molq_spec *spec,
+                                char *err, size_t errlen)
+{
+    molq_rovib_state st[MOLQ_MAX_STATES];
+    if (spec->nstates == 0) {
+        molq_errf(err, errlen, "species '%s': field 'diatomic_states': "
+                  "missing, needed by the levels model", spec->name);
+        return MOLQ_EVALUE;
+    }
+    molq_spec_rovib_states(spec, st);
+    if (molq_mode_rovibronic_init(&sp->modes[sp->nmodes], st, spec->nstates,
+                                  spec->d0, spec->spin_frozen,
+                                  spec->odd_fraction) != 0)
+        return MOLQ_ENOMEM;
+    sp->nmodes++;
+    return MOLQ_OK;
+}
+
 molq_status molq_species_build(const molq_spec *spec, double molar_mass,
-                               molq_species **out)
+                               molq_model model, molq_species **out,
+                               char *err, size_t errlen)
 {
     molq_species *sp = calloc(1, sizeof *sp);
-    size_t nel = spec->nel > 0 ? spec->nel : 1;
-    size_t i;
-    double *vt, *vg, *et, *eg;
+    molq_status st;
     if (sp == NULL)
         return MOLQ_ENOMEM;
     sp->name = molq_strdup(spec->name);
     sp->formula = dup_or_empty(spec->formula);
     sp->source = dup_or_empty(spec->source);
-    sp->arrays = malloc(sizeof(double) * (2 * spec->nvib + 2 * nel));
-    if (!sp->name || !sp->formula || !sp->source || !sp->arrays) {
+    sp->spec = molq_spec_clone(spec);
+    if (!sp->name || !sp->formula || !sp->source || !sp->spec) {
         molq_species_destroy(sp);
         return MOLQ_ENOMEM;
     }
-    vt = sp->arrays;
-    vg = vt + spec->nvib;
-    et = vg + spec->nvib;
-    eg = et + nel;
-    for (i = 0; i < spec->nvib; i++) {
-        vt[i] = MOLQ_C2_CM_K * spec->vib_wn[i];
-        vg[i] = (double)spec->vib_deg[i];
-    }
-    if (spec->nel == 0) {
-        et[0] = 0.0;
-        eg[0] = 1.0;
-    }
-    for (i = 0; i < spec->nel; i++) {
-        et[i] = MOLQ_C2_CM_K * spec->el_e[i];
-        eg[i] = (double)spec->el_g[i];
-    }
-
     sp->molar_mass = molar_mass;
     sp->structure = (molq_structure)spec->structure;
     sp->rotor = (molq_rotor)spec->rotor;
+    sp->model = model;
     sp->has_formation_enthalpy = spec->has_formation_enthalpy;
     sp->formation_enthalpy =
         spec->has_formation_enthalpy ? spec->formation_enthalpy : 0.0;
 
     molq_mode_translation_init(&sp->modes[sp->nmodes++], molar_mass);
-    if (spec->structure != MOLQ_ATOM)
-        molq_mode_rotation_init(&sp->modes[sp->nmodes++],
-                                spec->structure == MOLQ_LINEAR,
-                                spec->rotor == MOLQ_ROTOR_CLASSICAL,
-                                spec->sigma, spec->rot, &sp->t_min);
-    if (spec->nvib > 0)
-        molq_mode_vibration_init(&sp->modes[sp->nmodes++], spec->nvib, vt,
-                                 vg);
-    molq_mode_electronic_init(&sp->modes[sp->nmodes++], nel, et, eg);
+    st = model == MOLQ_MODEL_LEVELS ? build_levels(sp, spec, err, errlen)
+                                    : build_rrho(sp, spec, err, errlen);
+    if (st != MOLQ_OK) {
+        if (st == MOLQ_ENOMEM)
+            molq_errf(err, errlen, "species '%s': out of memory", spec->name);
+        molq_species_destroy(sp);
+        return st;
+    }
     *out = sp;
     return MOLQ_OK;
 }
 
 void molq_species_destroy(molq_species *sp)
 {
+    size_t i;
     if (sp == NULL)
         return;
+    for (i = 0; i < sp->nmodes; i++)
+        free(sp->modes[i].owned);
+    molq_spec_free(sp->spec);
     free(sp->name);
     free(sp->formula);
     free(sp->source);

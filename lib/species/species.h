@@ -16,6 +16,8 @@ struct molq_species_s {
     double molar_mass; /* kg/mol */
     molq_structure structure;
     molq_rotor rotor;
+    molq_model model;
+    molq_spec *spec; /* validated copy of the description (for variants) */
     int has_formation_enthalpy;
     double formation_enthalpy; /* J/mol at 298.15 K (0 when absent) */
     double h298_minus_h0;      /* J/mol, filled by molq_thermo_prepare */
@@ -25,10 +27,13 @@ struct molq_species_s {
     double *arrays; /* one block: vib theta, vib g, el theta, el g */
 };
 
-/* Build a species from a spec that molq_spec_validate accepted, with the
- * molar mass it returned.  Only MOLQ_ENOMEM can fail; nothing is leaked. */
+/* Build a species with `model` from a spec that molq_spec_validate
+ * accepted, with the molar mass it returned.  MOLQ_ENOMEM, or MOLQ_EVALUE
+ * when the data cannot support the model (message names the field);
+ * nothing is leaked. */
 molq_status molq_species_build(const molq_spec *spec, double molar_mass,
-                               molq_species **out);
+                               molq_model model, molq_species **out,
+                               char *err, size_t errlen);
 
 void molq_species_destroy(molq_species *sp);
 

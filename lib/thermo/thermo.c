@@ -101,3 +101,9 @@ int molq_thermo_mode(const molq_species *sp, size_t index, double T,
     default:          return -1;
     }
 }
+
+double molq_thermo_spin_conversion(const molq_species *sp, size_t index,
+                                   double T)
+{
+    return MOLQ_R * T * molq_rovibronic_conversion(&sp->modes[index], T);
+}

@@ -23,4 +23,8 @@ void molq_thermo_eval(const molq_species *sp, double T, double p,
 int molq_thermo_mode(const molq_species *sp, size_t index, double T,
                      double p, molq_property prop, double *out);
 
+/* Spin-isomer conversion enthalpy of a rovibronic mode at T, J/mol. */
+double molq_thermo_spin_conversion(const molq_species *sp, size_t index,
+                                   double T);
+
 #endif

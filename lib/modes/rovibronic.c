@@ -1,0 +1,260 @@
+/* Diatomic ro-vibrational level sums over electronic states.
+ *
+ * Term values E(v, J) = Te + sum_kl Y_kl (v + 1/2)^k [J(J+1)]^l (Dunham),
+ * measured from the ground state's v = 0, J = 0 term.  Only bound levels
+ * count: a vibrational ladder stops at the dissociation energy or where
+ * G(v) turns over, a rotational ladder at the dissociation energy or where
+ * the centrifugal terms turn it over.  Each rotational level carries
+ * g_el * w_parity * (2J + 1), with w the nuclear-spin weight of its J parity
+ * on the conventional scale.  The levels are generated once, sorted, and
+ * summed at each T until exp(-E/kT) falls below exp(-CUTOFF).
+ *
+ * Spin isomers: in equilibrium one sum over all levels; frozen, the even-
+ * and odd-J molecules are a mixture of fixed mole fractions x_p, each with
+ * its own sum Q_p (energies from the common zero), combined as
+ *   ln q = sum x_p (ln Q_p - ln x_p),  k_n = sum x_p k_n,p  (n = 1, 2, 3)
+ * which gives the mixture's U, Cv and S including its ideal mixing term.
+ */
+#include <math.h>
+#include <stdlib.h>
+
+#include "core/constants.h"
+#include "modes/modes.h"
+
+#define CUTOFF 60.0      /* exp(-60) = 9e-27 */
+#define MAX_J 1000000u   /* guard against ladders that never turn over */
+#define MAX_V 100000u
+
+static double term(const molq_rovib_state *s, double vh, double x)
+{
+    double e = s->te, vk = 1.0;
+    int k, l;
+    for (k = 0; k < MOLQ_DUNHAM_K; k++) {
+        double xl = 1.0;
+        for (l = 0; l < MOLQ_DUNHAM_L; l++) {
+            e += s->y[k][l] * vk * xl;
+            xl *= x;
+        }
+        vk *= vh;
+    }
+    return e;
+}
+
+typedef struct sink {
+    double *theta[2], *w[2];
+    size_t n[2], count, limit;
+} sink;
+
+/* Walk all bound levels; store them when the sink has arrays. */
+static int walk(const molq_rovib_state *st, size_t n, double d0, sink *out,
+                size_t *empty)
+{
+    double e0 = term(&st[0], 0.5, 0.0) - st[0].te;
+    size_t i;
+    *empty = n;
+    for (i = 0; i < n; i++) {
+        const molq_rovib_state *s = &st[i];
+        double gprev = -HUGE_VAL;
+        size_t before = out->count;
+        unsigned v;
+        for (v = 0; v < MAX_V; v++) {
+            double g = term(s, v + 0.5, 0.0) - e0, eprev = -HUGE_VAL;
+            unsigned J;
+            if (!(g < d0) || g <= gprev)
+                break;
+            gprev = g;
+            for (J = 0; J < MAX_J; J++) {
+                double x = (double)J * (J + 1.0);
+                double e = term(s, v + 0.5, x) - e0;
+                int par = (int)(J & 1u);
+                double w = par ? s->w_odd : s->w_even;
+                if (!(e < d0) || e <= eprev)
+                    break;
+                eprev = e;
+                if (w <= 0.0)
+                    continue;
+                if (out->count >= out->limit)
+                    return -1;
+                if (out->theta[0] != NULL) {
+                    out->theta[par][out->n[par]] = MOLQ_C2_CM_K * e;
+                    out->w[par][out->n[par]] = s->g * w * (2.0 * J + 1.0);
+                }
+                out->n[par]++;
+                out->count++;
+            }
+        }
+        if (out->count == before && *empty == n)
+            *empty = i;
+    }
+    return 0;
+}
+
+size_t molq_rovib_count(const molq_rovib_state *st, size_t n, double d0,
+                        size_t limit, size_t *empty)
+{
+    sink s = {{NULL, NULL}, {NULL, NULL}, {0, 0}, 0, limit};
+    if (walk(st, n, d0, &s, empty) != 0)
+        return (size_t)-1;
+    return s.count;
+}
+
+static int cmp_pair(const void *a, const void *b)
+{
+    const double *x = a, *y = b;
+    return (x[0] > y[0]) - (x[0] < y[0]);
+}
+
+/* Sort theta ascending, carrying w along (via an interleaved scratch). */
+static int sort_list(double *theta, double *w, size_t n)
+{
+    double *pairs = malloc(2 * n * sizeof *pairs + 1);
+    size_t i;
+    if (pairs == NULL)
+        return -1;
+    for (i = 0; i < n; i++) {
+        pairs[2 * i] = theta[i];
+        pairs[2 * i + 1] = w[i];
+    }
+    qsort(pairs, n, 2 * sizeof *pairs, cmp_pair);
+    for (i = 0; i < n; i++) {
+        theta[i] = pairs[2 * i];
+        w[i] = pairs[2 * i + 1];
+    }
+    free(pairs);
+    return 0;
+}
+
+typedef struct moments {
+    double q, m1, m2, m3;
+} moments;
+
+/* Raw moments of y = (theta - zero)/T over a sorted list. */
+static void sum_list(const double *theta, const double *w, size_t n,
+                     double zero, double T, moments *m)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        double y = (theta[i] - zero) / T, e;
+        if (y > CUTOFF)
+            break;
+        e = w[i] * exp(-y);
+        m->q += e;
+        m->m1 += e * y;
+        m->m2 += e * y * y;
+        m->m3 += e * y * y * y;
+    }
+}
+
+/* Cumulants of a sum whose energies were shifted down by `zero`. */
+static void finish(const moments *m, double zero, double T,
+                   molq_cumulants *out)
+{
+    double mean = m->m1 / m->q, r2 = m->m2 / m->q;
+    out->lnq = log(m->q) - zero / T;
+    out->k1 = mean + zero / T;
+    out->k2 = r2 - mean * mean;
+    out->k3 = m->m3 / m->q - 3.0 * mean * r2 + 2.0 * mean * mean * mean;
+}
+
+static void frozen_sum(const molq_rovib_params *r, double x_odd, double T,
+                       molq_cumulants *out)
+{
+    double x[2];
+    int p;
+    x[0] = 1.0 - x_odd;
+    x[1] = x_odd;
+    out->lnq = out->k1 = out->k2 = out->k3 = 0.0;
+    for (p = 0; p < 2; p++) {
+        moments m = {0.0, 0.0, 0.0, 0.0};
+        molq_cumulants c;
+        if (r->n[p] == 0 || x[p] == 0.0)
+            continue;
+        sum_list(r->theta[p], r->w[p], r->n[p], r->theta[p][0], T, &m);
+        finish(&m, r->theta[p][0], T, &c);
+        out->lnq += x[p] * (c.lnq - log(x[p]));
+        out->k1 += x[p] * c.k1;
+        out->k2 += x[p] * c.k2;
+        out->k3 += x[p] * c.k3;
+    }
+}
+
+static void equilibrium_sum(const molq_rovib_params *r, double T,
+                            molq_cumulants *out)
+{
+    moments m = {0.0, 0.0, 0.0, 0.0};
+    sum_list(r->theta[0], r->w[0], r->n[0], 0.0, T, &m);
+    sum_list(r->theta[1], r->w[1], r->n[1], 0.0, T, &m);
+    finish(&m, 0.0, T, out);
+}
+
+static void eval_rovibronic(const molq_mode *m, double T, double p,
+                            unsigned need, molq_cumulants *out)
+{
+    (void)p;
+    (void)need;
+    if (m->u.rv.frozen)
+        frozen_sum(&m->u.rv, m->u.rv.x_odd, T, out);
+    else
+        equilibrium_sum(&m->u.rv, T, out);
+}
+
+double molq_rovibronic_conversion(const molq_mode *m, double T)
+{
+    const molq_rovib_params *r = &m->u.rv;
+    molq_cumulants fz, eq;
+    frozen_sum(r, r->frozen ? r->x_odd : r->x_odd_normal, T, &fz);
+    equilibrium_sum(r, T, &eq);
+    return fz.k1 - eq.k1;
+}
+
+int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
+                              size_t n, double d0, int frozen, double x_odd)
+{
+    size_t empty, count = molq_rovib_count(st, n, d0, (size_t)-2, &empty);
+    double *block = malloc(2 * (count + 1) * sizeof *block);
+    sink s;
+    double zero;
+    size_t i;
+    int p;
+    if (block == NULL)
+        return -1;
+    s.theta[0] = block;
+    s.w[0] = block + count;
+    s.n[0] = s.n[1] = 0;
+    s.count = 0;
+    s.limit = count;
+    /* count the even levels first so both lists fit in one block */
+    {
+        sink c = {{NULL, NULL}, {NULL, NULL}, {0, 0}, 0, count};
+        walk(st, n, d0, &c, &empty);
+        s.theta[1] = block + c.n[0];
+        s.w[1] = block + count + c.n[0];
+    }
+    walk(st, n, d0, &s, &empty);
+    for (p = 0; p < 2; p++)
+        if (sort_list(s.theta[p], s.w[p], s.n[p]) != 0) {
+            free(block);
+            return -1;
+        }
+    /* energy zero at the lowest level that exists */
+    zero = HUGE_VAL;
+    for (p = 0; p < 2; p++)
+        if (s.n[p] > 0 && s.theta[p][0] < zero)
+            zero = s.theta[p][0];
+    for (p = 0; p < 2; p++)
+        for (i = 0; i < s.n[p]; i++)
+            s.theta[p][i] -= zero;
+
+    m->kind = MOLQ_MODE_ROVIBRONIC;
+    m->eval = eval_rovibronic;
+    m->owned = block;
+    for (p = 0; p < 2; p++) {
+        m->u.rv.n[p] = s.n[p];
+        m->u.rv.theta[p] = s.theta[p];
+        m->u.rv.w[p] = s.w[p];
+    }
+    m->u.rv.frozen = frozen;
+    m->u.rv.x_odd = x_odd;
+    m->u.rv.x_odd_normal = st[0].w_odd / (st[0].w_even + st[0].w_odd);
+    return 0;
+}

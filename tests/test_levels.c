@@ -1,0 +1,184 @@
+/* The diatomic level-sum model (MOLQ_MODEL_LEVELS): accuracy against the
+ * NIST-JANAF Thermochemical Tables (4th ed., Chase 1998; extracts in
+ * tests/data/janaf/), its limits, and nuclear-spin statistics. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "testutil.h"
+
+/* Accuracy the level sums must reach (the targets of the model's design):
+ * N2, O2, CO: cp within 0.05 J/(mol K) and s within 0.03 J/(mol K) from
+ * 100 K to 2000 K, cp within 0.5 % up to 4000 K.  H2 (equilibrium
+ * ortho/para, which is what JANAF tabulates): cp within 0.05 and s within
+ * 0.03 from 100 K to 500 K, cp within 1 % up to 3000 K.  For comparison
+ * the rigid-rotor/harmonic model misses O2 cp by 0.88 J/(mol K) (2.2 %)
+ * between 1000 and 3000 K and H2 cp by 1.7 J/(mol K) at 100-300 K. */
+static const struct target {
+    const char *name;
+    double t_fine, cp_fine, s_fine; /* up to t_fine: absolute, J/(mol K) */
+    double t_wide, cp_wide;         /* up to t_wide: relative */
+} targets[] = {
+    {"N2", 2000, 0.05, 0.03, 4000, 0.005},
+    {"O2", 2000, 0.05, 0.03, 4000, 0.005},
+    {"CO", 2000, 0.05, 0.03, 4000, 0.005},
+    {"H2", 500, 0.05, 0.03, 3000, 0.01},
+};
+
+START_TEST(levels_reach_tables)
+{
+    const struct target *g = &targets[_i];
+    const molq_species *sp = tu_species(g->name);
+    tu_table t;
+    size_t i;
+    ck_assert_int_eq(molq_species_model(sp), MOLQ_MODEL_LEVELS);
+    tu_read_janaf(g->name, &t);
+    for (i = 0; i < t.n && t.T[i] <= g->t_wide; i++) {
+        double T = t.T[i];
+        double cp = tu_eval(sp, T, 1e5, MOLQ_CP);
+        double s = tu_eval(sp, T, 1e5, MOLQ_S);
+        if (T <= g->t_fine) {
+            ck_assert_msg(fabs(cp - t.cp[i]) <= g->cp_fine,
+                          "%s cp at %g K: %.4f vs JANAF %.3f", g->name, T, cp,
+                          t.cp[i]);
+            ck_assert_msg(fabs(s - t.s[i]) <= g->s_fine,
+                          "%s s at %g K: %.4f vs JANAF %.3f", g->name, T, s,
+                          t.s[i]);
+        }
+        ck_assert_msg(fabs(cp / t.cp[i] - 1) <= g->cp_wide,
+                      "%s cp at %g K: %.4f vs JANAF %.3f", g->name, T, cp,
+                      t.cp[i]);
+    }
+}
+END_TEST
+
+/* Limit: with no anharmonicity, no vibration-rotation coupling and no
+ * centrifugal distortion, E(v, J) = we v + Be J(J+1) exactly, so the level
+ * sum must equal harmonic oscillator x rigid rotor (the RRHO variant's
+ * corrected rotor is the exact rigid-rotor sum to 1e-11).  The dissociation
+ * energy is put where truncation is below 1e-40 at 3000 K.  Invented test
+ * constants. */
+START_TEST(levels_reduce_to_rrho)
+{
+    static const char *js =
+        "{\"species\": [{\"name\": \"D\", \"molar_mass\": 20,"
+        " \"structure\": \"linear\", \"dissociation_energy\": 200000,"
+        " \"diatomic_states\": [{\"Te\": 0, \"we\": 3000, \"Be\": 10}]},"
+        "{\"name\": \"Dh\", \"molar_mass\": 20, \"structure\": \"linear\","
+        " \"symmetry_number\": 2, \"dissociation_energy\": 200000,"
+        " \"diatomic_states\": [{\"Te\": 0, \"we\": 3000, \"Be\": 10,"
+        " \"rotational_weights\": [0.25, 0.75]}]}]}";
+    molq_db *db;
+    char err[256];
+    const molq_property props[] = {MOLQ_LNQ, MOLQ_CP, MOLQ_S, MOLQ_H,
+                                   MOLQ_DCP_DT};
+    size_t k, j, i;
+    tu_from_json(js, &db);
+    for (k = 0; k < 2; k++) {
+        const molq_species *lv = molq_db_species(db, k);
+        molq_species *rr;
+        ck_assert_int_eq(molq_species_with_model(lv, MOLQ_MODEL_RRHO, &rr, err,
+                                                 sizeof err),
+                         MOLQ_OK);
+        for (i = 0; i < 5; i++)
+            for (j = 0; j < 5; j++) {
+                /* homonuclear: spin weights reduce to 1/sigma only when
+                 * T >> theta_rot = 14 K */
+                double T = (k == 0 ? 20.0 : 1000.0) * (1 + i * 0.7);
+                double a = tu_eval(lv, T, 1e5, props[j]);
+                double b = tu_eval(rr, T, 1e5, props[j]);
+                ck_assert_msg(tu_close(a, b, k == 0 ? 1e-10 : 1e-9, 1e-6),
+                              "%s %s at %g K: levels %.12g rrho %.12g",
+                              molq_species_name(lv),
+                              molq_property_name(props[j]), T, a, b);
+            }
+        molq_species_free(rr);
+    }
+    molq_db_free(db);
+}
+END_TEST
+
+/* Normal hydrogen (frozen 3:1 ortho:para) and equilibrium hydrogen. */
+static const char *const h2_json =
+    "{\"species\": [{\"name\": \"nH2\", \"molar_mass\": 2.01588,"
+    " \"structure\": \"linear\", \"symmetry_number\": 2,"
+    " \"dissociation_energy\": 36118.07, \"spin_isomers\": \"frozen\","
+    " \"odd_fraction\": 0.75,"
+    " \"diatomic_states\": [{\"Te\": 0, \"we\": 4401.21, \"wexe\": 121.33,"
+    " \"Be\": 60.853, \"alpha_e\": 3.062, \"De\": 0.0471,"
+    " \"rotational_weights\": [0.25, 0.75]}]}]}";
+
+START_TEST(spin_isomers)
+{
+    molq_db *db;
+    const molq_species *n = tu_from_json(h2_json, &db);
+    const molq_species *e = tu_species("H2");
+    double dh, v;
+    /* At high T the frozen normal mixture is the equilibrium one. */
+    ck_assert_close(tu_eval(n, 1500, 1e5, MOLQ_S), tu_eval(e, 1500, 1e5, MOLQ_S),
+                    1e-3, 0.0);
+    /* Frozen at 10 K: para in J = 0 and ortho in J = 1, no rotational heat
+     * capacity, cp -> 5/2 R (common practice). */
+    ck_assert_close(tu_eval(n, 10, 1e5, MOLQ_CP), 2.5 * T_R, 1e-5, 0.0);
+    /* Heat of conversion of normal to equilibrium hydrogen at 20 K: about
+     * 527 kJ/kg (from memory; widely quoted in cryogenic practice), i.e.
+     * 1.06 kJ/mol -- more than the heat of vaporization. */
+    ck_assert_int_eq(molq_eval_spin_conversion(n, 20.0, &dh), MOLQ_OK);
+    ck_assert_msg(fabs(dh - 527.0 * 2.01588) < 10.0, "dh = %g J/mol", dh);
+    /* The equilibrium species converts the high-T (normal) mixture: same. */
+    ck_assert_int_eq(molq_eval_spin_conversion(e, 20.0, &v), MOLQ_OK);
+    ck_assert_close(v, dh, 1e-3, 0.0);
+    /* Nothing left to convert at high T. */
+    ck_assert_int_eq(molq_eval_spin_conversion(n, 2000.0, &v), MOLQ_OK);
+    ck_assert_msg(fabs(v) < 1e-3, "dh(2000 K) = %g", v);
+    /* Not a level-sum species: no conversion to speak of. */
+    ck_assert_int_eq(molq_eval_spin_conversion(tu_species("CO2"), 20.0, &v),
+                     MOLQ_EARG);
+    molq_db_free(db);
+}
+END_TEST
+
+/* Variants: the RRHO variant of a level-sum species, and back. */
+START_TEST(model_variants)
+{
+    const molq_species *o2 = tu_species("O2");
+    molq_species *rr, *lv;
+    char err[256];
+    ck_assert_int_eq(molq_species_with_model(o2, MOLQ_MODEL_RRHO, &rr, err,
+                                             sizeof err),
+                     MOLQ_OK);
+    ck_assert_int_eq(molq_species_model(rr), MOLQ_MODEL_RRHO);
+    ck_assert_int_eq(molq_species_with_model(rr, MOLQ_MODEL_LEVELS, &lv, err,
+                                             sizeof err),
+                     MOLQ_OK);
+    ck_assert_double_eq(tu_eval(lv, 777, 1e5, MOLQ_G),
+                        tu_eval(o2, 777, 1e5, MOLQ_G));
+    molq_species_free(lv);
+    molq_species_free(rr);
+    /* A polyatomic has no level data: a clear error. */
+    ck_assert_int_eq(molq_species_with_model(tu_species("CO2"),
+                                             MOLQ_MODEL_LEVELS, &lv, err,
+                                             sizeof err),
+                     MOLQ_EVALUE);
+    ck_assert_ptr_nonnull(strstr(err, "diatomic_states"));
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("levels");
+    TCase *tc = tcase_create("levels");
+    SRunner *sr;
+    int failed;
+    tcase_set_timeout(tc, 120);
+    tcase_add_loop_test(tc, levels_reach_tables, 0,
+                        sizeof targets / sizeof targets[0]);
+    tcase_add_test(tc, levels_reduce_to_rrho);
+    tcase_add_test(tc, spin_isomers);
+    tcase_add_test(tc, model_variants);
+    suite_add_tcase(s, tc);
+    sr = srunner_create(s);
+    srunner_run_all(sr, CK_NORMAL);
+    failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+}
