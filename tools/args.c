@@ -217,3 +217,89 @@ int cli_parse_temperatures(const char *opt, const char *text, double **out,
         return parse_range(opt, text, out, n, msg, msglen);
     return parse_list(opt, text, out, n, msg, msglen);
 }
+
+/* "a, b or c" into buf. */
+static void list_names(const char *const *names, size_t n, char *buf,
+                       size_t len)
+{
+    size_t i, used = 0;
+    buf[0] = '\0';
+    for (i = 0; i < n && used < len; i++) {
+        int w = snprintf(buf + used, len - used, "%s%s",
+                         i == 0 ? "" : i + 1 == n ? " or " : ", ", names[i]);
+        if (w < 0)
+            break;
+        used += (size_t)w;
+    }
+}
+
+static int find_name(const char *text, size_t len, const char *const *names,
+                     size_t n, size_t *index)
+{
+    size_t i;
+    for (i = 0; i < n; i++)
+        if (strlen(names[i]) == len && strncmp(names[i], text, len) == 0) {
+            *index = i;
+            return 0;
+        }
+    return -1;
+}
+
+int cli_parse_choice(const char *opt, const char *noun, const char *text,
+                     const char *const *names, size_t n, size_t *index,
+                     char *msg, size_t msglen)
+{
+    char all[256];
+    if (find_name(text, strlen(text), names, n, index) == 0)
+        return 0;
+    list_names(names, n, all, sizeof all);
+    if (text[0] == '\0')
+        snprintf(msg, msglen, "option %s: empty value (use %s)", opt, all);
+    else
+        snprintf(msg, msglen, "option %s: unknown %s '%.*s' (use %s)", opt,
+                 noun, QUOTE_MAX, text, all);
+    return -1;
+}
+
+int cli_parse_choice_list(const char *opt, const char *noun,
+                          const char *text, const char *const *names,
+                          size_t n, size_t *out, size_t *count, char *msg,
+                          size_t msglen)
+{
+    char all[256];
+    const char *p = text;
+    size_t k = 0, i, idx;
+
+    list_names(names, n, all, sizeof all);
+    if (text[0] == '\0') {
+        snprintf(msg, msglen, "option %s: empty value (give %ss separated by "
+                 "commas, from %s)", opt, noun, all);
+        return -1;
+    }
+    for (;;) {
+        const char *comma = strchr(p, ',');
+        size_t len = comma ? (size_t)(comma - p) : strlen(p);
+        if (len == 0) {
+            snprintf(msg, msglen, "option %s: empty entry in list '%.*s'",
+                     opt, QUOTE_MAX, text);
+            return -1;
+        }
+        if (find_name(p, len, names, n, &idx) != 0) {
+            snprintf(msg, msglen, "option %s: unknown %s '%.*s' (use %s)", opt,
+                     noun, (int)(len < QUOTE_MAX ? len : QUOTE_MAX), p, all);
+            return -1;
+        }
+        for (i = 0; i < k; i++)
+            if (out[i] == idx) {
+                snprintf(msg, msglen, "option %s: %s '%s' given twice in "
+                         "'%.*s'", opt, noun, names[idx], QUOTE_MAX, text);
+                return -1;
+            }
+        out[k++] = idx; /* k <= n: the names are distinct */
+        if (comma == NULL)
+            break;
+        p = comma + 1;
+    }
+    *count = k;
+    return 0;
+}

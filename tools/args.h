@@ -29,4 +29,20 @@ int cli_parse_positive(const char *opt, const char *text, double *out,
 int cli_parse_temperatures(const char *opt, const char *text, double **out,
                            size_t *n, char *msg, size_t msglen);
 
+/* Look `text` up in the n names `names` (exact, case-sensitive match) and
+ * store its position in *index.  On failure `msg` reads
+ * "option OPT: unknown NOUN 'TEXT' (use a, b or c)". */
+int cli_parse_choice(const char *opt, const char *noun, const char *text,
+                     const char *const *names, size_t n, size_t *index,
+                     char *msg, size_t msglen);
+
+/* Parse a comma-separated list of distinct names from `names` (n of them)
+ * such as "rrho,levels": positions into out[0..*count-1] in the order
+ * given.  `out` must have room for n entries.  Empty entries, unknown and
+ * repeated names are errors. */
+int cli_parse_choice_list(const char *opt, const char *noun,
+                          const char *text, const char *const *names,
+                          size_t n, size_t *out, size_t *count, char *msg,
+                          size_t msglen);
+
 #endif

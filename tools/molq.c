@@ -3,7 +3,11 @@
  *
  *   molq table SPECIES... [--data FILE] [--T LIST|START:STOP:STEP] [--p PA]
  *                         [--format text|csv|json] [--per-mass]
+ *                         [--model NAME | --compare NAME,NAME...]
  *   molq modes SPECIES... [--data FILE] [--T ...] [--p PA] [--format ...]
+ *                         [--model NAME]
+ *   molq spin SPECIES...  [--data FILE] [--T ...] [--format ...]
+ *                         [--per-mass] [--model NAME]
  *   molq list [--data FILE] [--format ...]
  *   molq help | --help | --version
  *
@@ -20,29 +24,71 @@
 
 enum { EXIT_DATA = 1, EXIT_USAGE = 2 };
 enum { FMT_TEXT, FMT_CSV, FMT_JSON };
-enum { CMD_TABLE, CMD_MODES, CMD_LIST };
+enum { CMD_TABLE, CMD_MODES, CMD_LIST, CMD_SPIN, N_CMDS };
 
-static const char *const cmd_name[] = {"table", "modes", "list"};
+static const char *const cmd_name[N_CMDS] = {"table", "modes", "list",
+                                             "spin"};
 
-static const char help_text[] =
+/* The models of the library, by the names used on the command line and in
+ * species files, with the one line the help text gives each.  A new
+ * molq_model value needs one new line here and nothing else. */
+static const struct {
+    molq_model id;
+    const char *name;
+    const char *about;
+} model_table[] = {
+    {MOLQ_MODEL_RRHO, "rrho",
+     "rigid rotor, harmonic vibrations, electronic level list (fast)"},
+    {MOLQ_MODEL_LEVELS, "levels",
+     "diatomics: sum over bound ro-vibrational levels (anharmonic, spin)"},
+};
+#define N_MODELS (sizeof model_table / sizeof model_table[0])
+
+static const char *model_name(molq_model id)
+{
+    size_t i;
+    for (i = 0; i < N_MODELS; i++)
+        if (model_table[i].id == id)
+            return model_table[i].name;
+    return "unknown";
+}
+
+static const char help_head[] =
     "molq -- ideal-gas thermodynamic properties from molecular constants\n"
     "\n"
     "Usage:\n"
     "  molq table SPECIES... [--data FILE] [--T TEMPS] [--p PASCAL]\n"
     "                        [--format text|csv|json] [--per-mass]\n"
+    "                        [--model NAME | --compare NAME,NAME...]\n"
     "  molq modes SPECIES... [--data FILE] [--T TEMPS] [--p PASCAL]\n"
-    "                        [--format text|csv|json]\n"
+    "                        [--format text|csv|json] [--model NAME]\n"
+    "  molq spin SPECIES...  [--data FILE] [--T TEMPS]\n"
+    "                        [--format text|csv|json] [--per-mass]\n"
+    "                        [--model NAME]\n"
     "  molq list [--data FILE] [--format text|csv|json]\n"
     "  molq help | molq --help | molq --version\n"
     "\n"
     "Commands:\n"
     "  table   cp, cv, h, s, g, h_minus_h298, gef and dcp_dT of each SPECIES\n"
-    "          at each temperature, by statistical mechanics (translation,\n"
-    "          rigid rotation, harmonic vibration, electronic levels).\n"
+    "          at each temperature, by statistical mechanics with the\n"
+    "          species' model (see Models).\n"
     "  modes   the contribution of each mode (translation, rotation,\n"
-    "          vibration, electronic) to ln q, u, cv and s, with the totals.\n"
-    "  list    the species available: name, formula, structure, molar mass,\n"
-    "          whether a formation enthalpy is given, and the data source.\n"
+    "          vibration, electronic; rovibronic for the levels model) to\n"
+    "          ln q, u, cv and s, with the totals.\n"
+    "  spin    ortho-para (even/odd-J) conversion enthalpy\n"
+    "          h_frozen - h_equilibrium, J/mol: the heat released when the\n"
+    "          frozen mixture (the species' own, or else its high-temperature\n"
+    "          even/odd ratio, e.g. normal hydrogen) relaxes to spin\n"
+    "          equilibrium at T.  Levels model only; zero (to round-off)\n"
+    "          when even and odd levels weigh the same.  Default TEMPS:\n"
+    "          20,30,40,50,77,100,150,200,298.15\n"
+    "  list    the species available: name, formula, structure, model,\n"
+    "          molar mass, whether a formation enthalpy is given, and the\n"
+    "          data source.\n"
+    "\n"
+    "Models (a species file chooses one per species with \"model\"):\n";
+
+static const char help_tail[] =
     "\n"
     "Options:\n"
     "  --data FILE     also read species from FILE (JSON species file).\n"
@@ -55,13 +101,18 @@ static const char help_text[] =
     "  --p PASCAL      pressure in Pa (default 100000, the standard state).\n"
     "                  Only s, g and gef (and ln q) depend on it.\n"
     "  --format F      text (aligned table, default), csv or json.\n"
-    "  --per-mass      (table) per kilogram instead of per mole.\n"
+    "  --per-mass      (table, spin) per kilogram instead of per mole.\n"
+    "  --model NAME    evaluate every SPECIES with model NAME instead of its\n"
+    "                  own (the species data must support it).\n"
+    "  --compare LIST  (table) one row per model for each species and T,\n"
+    "                  e.g. --compare rrho,levels.\n"
     "  --              end of options; later words are species names.\n"
     "  Options may also be written --name=value.\n"
     "\n"
     "Quantities and units (molar; with --per-mass 'mol' becomes 'kg'):\n"
     "  T K;  cp, cv, s, gef J/(mol K);  h, g, h_minus_h298 J/mol;\n"
-    "  dcp_dT J/(mol K^2);  modes: lnq dimensionless, u J/mol.\n"
+    "  dcp_dT J/(mol K^2);  modes: lnq dimensionless, u J/mol;\n"
+    "  spin: h_frozen_minus_h_eq J/mol.\n"
     "  h(T) = dfH(298.15 K) + [H(T) - H(298.15 K)]; a species without a\n"
     "  formation enthalpy gets dfH = 0.  g = h - T s.\n"
     "  gef = -(g - h(298.15 K))/T.  s is the conventional entropy at p.\n"
@@ -69,10 +120,15 @@ static const char help_text[] =
     "\n"
     "Output formats:\n"
     "  csv   table header: species,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT\n"
+    "        (with --compare: species,model,T,cp,...)\n"
     "        modes header: species,T,mode,lnq,u,cv,s\n"
+    "        spin header:  species,T,h_frozen_minus_h_eq\n"
     "        numbers with 12 significant digits.\n"
     "  json  {\"units\": {...}, \"pressure\": p, \"basis\": ...,\n"
-    "         \"species\": [{\"name\": ..., \"rows\": [{\"T\": ..., ...}]}]}\n"
+    "         \"species\": [{\"name\": ..., \"model\": ...,\n"
+    "                      \"rows\": [{\"T\": ..., ...}]}]}\n"
+    "        (with --compare each species has \"models\": [{\"model\": ...,\n"
+    "        \"rows\": [...]}] instead of \"model\" and \"rows\");\n"
     "        numbers with 17 significant digits (exact round trip).\n"
     "\n"
     "Exit status: 0 success, 1 data or evaluation error, 2 usage error.\n"
@@ -82,8 +138,21 @@ static const char help_text[] =
     "verification under the applicable codes and licensed engineering\n"
     "review.\n";
 
+static void print_help(FILE *f)
+{
+    size_t i;
+    fputs(help_head, f);
+    for (i = 0; i < N_MODELS; i++)
+        fprintf(f, "  %-10s %s\n", model_table[i].name, model_table[i].about);
+    fputs("  Default: each species' own model (shown by 'molq list').\n", f);
+    fputs(help_tail, f);
+}
+
 static const double default_T[] = {298.15, 300,  400,  500,  600, 800,
                                    1000,   1500, 2000, 2500, 3000};
+/* Default temperatures of `molq spin`: the conversion matters when cold. */
+static const double default_T_spin[] = {20, 30, 40, 50, 77, 100, 150, 200,
+                                        298.15};
 
 /* Properties of `molq table`, in column order. */
 static const molq_property table_props[] = {
@@ -101,18 +170,35 @@ static const char *const mode_units[N_MODE] = {"1", "J/mol", "J/(mol K)",
 /* Options                                                                  */
 /* ------------------------------------------------------------------------ */
 
-enum { OPT_DATA, OPT_T, OPT_P, OPT_FORMAT, OPT_PER_MASS, N_OPTS };
+enum {
+    OPT_DATA,
+    OPT_T,
+    OPT_P,
+    OPT_FORMAT,
+    OPT_PER_MASS,
+    OPT_MODEL,
+    OPT_COMPARE,
+    N_OPTS
+};
+
+/* Bits of the commands an option applies to. */
+#define FOR_TABLE (1u << CMD_TABLE)
+#define FOR_MODES (1u << CMD_MODES)
+#define FOR_LIST (1u << CMD_LIST)
+#define FOR_SPIN (1u << CMD_SPIN)
 
 static const struct {
     const char *name;
     int takes_value;
     unsigned commands; /* bit i set: accepted by command i */
 } opt_table[N_OPTS] = {
-    {"--data", 1, 7u},
-    {"--T", 1, 3u},
-    {"--p", 1, 3u},
-    {"--format", 1, 7u},
-    {"--per-mass", 0, 1u},
+    {"--data", 1, FOR_TABLE | FOR_MODES | FOR_LIST | FOR_SPIN},
+    {"--T", 1, FOR_TABLE | FOR_MODES | FOR_SPIN},
+    {"--p", 1, FOR_TABLE | FOR_MODES},
+    {"--format", 1, FOR_TABLE | FOR_MODES | FOR_LIST | FOR_SPIN},
+    {"--per-mass", 0, FOR_TABLE | FOR_SPIN},
+    {"--model", 1, FOR_TABLE | FOR_MODES | FOR_SPIN},
+    {"--compare", 1, FOR_TABLE},
 };
 
 typedef struct options {
@@ -127,6 +213,9 @@ typedef struct options {
     const char **names; /* species names (borrowed from argv) */
     size_t nnames;
     int help;
+    int model;              /* index into model_table, or -1: own model */
+    size_t compare[N_MODELS]; /* --compare: indices into model_table */
+    size_t ncompare;          /* 0 without --compare */
 } options;
 
 static void usage_error(const char *fmt, const char *a, const char *b)
@@ -142,6 +231,11 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
     int given[N_OPTS] = {0};
     int i, only_names = 0;
     char msg[512];
+    const char *models[N_MODELS];
+    size_t m;
+
+    for (m = 0; m < N_MODELS; m++)
+        models[m] = model_table[m].name;
 
     o->names = malloc((size_t)(argc > 0 ? argc : 1) * sizeof *o->names);
     if (o->names == NULL) {
@@ -245,7 +339,29 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
         case OPT_PER_MASS:
             o->per_mass = 1;
             break;
+        case OPT_MODEL:
+            if (cli_parse_choice("--model", "model", value, models, N_MODELS,
+                                 &m, msg, sizeof msg) != 0) {
+                usage_error("%s%s", msg, "");
+                return EXIT_USAGE;
+            }
+            o->model = (int)m;
+            break;
+        case OPT_COMPARE:
+            if (cli_parse_choice_list("--compare", "model", value, models,
+                                      N_MODELS, o->compare, &o->ncompare, msg,
+                                      sizeof msg) != 0) {
+                usage_error("%s%s", msg, "");
+                return EXIT_USAGE;
+            }
+            break;
         }
+    }
+    if (given[OPT_MODEL] && given[OPT_COMPARE]) {
+        usage_error("options --model and --compare exclude each other (use "
+                    "--compare %s,... to include the model%s)",
+                    model_table[o->model].name, "");
+        return EXIT_USAGE;
     }
     if (!o->help && cmd != CMD_LIST && o->nnames == 0) {
         usage_error("'molq %s' needs at least one species name%s",
@@ -451,8 +567,11 @@ static int json_finish(jctx *j, json_t *root)
 static void eval_error(const molq_species *sp, double T, double p,
                        molq_status st)
 {
-    fprintf(stderr, "molq: species '%s' at T = %.12g K, p = %.12g Pa: %s",
-            molq_species_name(sp), T, p, molq_status_string(st));
+    fprintf(stderr, "molq: species '%s' (model %s) at T = %.12g K",
+            molq_species_name(sp), model_name(molq_species_model(sp)), T);
+    if (p > 0.0) /* 0: no pressure involved */
+        fprintf(stderr, ", p = %.12g Pa", p);
+    fprintf(stderr, ": %s", molq_status_string(st));
     if (st == MOLQ_ERANGE)
         fprintf(stderr, " (its models are valid from T = %.12g K up)",
                 molq_species_t_min(sp));
@@ -489,28 +608,34 @@ static molq_status table_row(const molq_species *sp, double T, double p,
 
 #define TW 14 /* text column width */
 
-static void text_species_title(const molq_species *sp)
+/* Title line of a species in text output; `show_model`: name its model. */
+static void text_species_title(const molq_species *sp, int show_model)
 {
     const char *f = molq_species_formula(sp);
-    printf("%s  (%s%s%s%.10g g/mol, %s)\n", molq_species_name(sp),
+    printf("%s  (%s%s%s%.10g g/mol, ", molq_species_name(sp),
            f[0] ? "formula " : "", f, f[0] ? ", " : "",
-           molq_species_molar_mass(sp) * 1e3,
-           molq_species_has_formation_enthalpy(sp)
-               ? "h includes the formation enthalpy at 298.15 K"
-               : "no formation enthalpy: h = h(T) - h(298.15 K)");
+           molq_species_molar_mass(sp) * 1e3);
+    if (show_model)
+        printf("model %s, ", model_name(molq_species_model(sp)));
+    printf("%s)\n", molq_species_has_formation_enthalpy(sp)
+                        ? "h includes the formation enthalpy at 298.15 K"
+                        : "no formation enthalpy: h = h(T) - h(298.15 K)");
 }
 
-static int cmd_table(const options *o, const molq_species **sp, size_t nsp)
+/* `molq table`: sp holds nm variants (models) of each of nsp species,
+ * sp[i * nm + k]; compare != 0 prints a model column (--compare). */
+static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
+                     size_t nm, int compare)
 {
     double v[N_TABLE];
-    size_t i, t, k;
+    size_t i, t, k, m;
     molq_status st;
     char unit[32];
     double Tmin = min_of(o->T, o->nT);
 
     /* Evaluate each species at the lowest T first so that a species outside
      * its range fails before any output is written. */
-    for (i = 0; i < nsp; i++)
+    for (i = 0; i < nsp * nm; i++)
         if ((st = table_row(sp[i], Tmin, o->p, o->per_mass, v)) != MOLQ_OK) {
             eval_error(sp[i], Tmin, o->p, st);
             return EXIT_DATA;
@@ -534,37 +659,52 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp)
         list = jcheck(&j, json_array());
         jset(&j, root, "species", list);
         for (i = 0; i < nsp && !j.failed; i++) {
-            json_t *e = jcheck(&j, json_object()), *rows;
+            const molq_species *first = sp[i * nm];
+            json_t *e = jcheck(&j, json_object()), *models = NULL;
             jappend(&j, list, e);
-            jset(&j, e, "name", json_string(molq_species_name(sp[i])));
-            jset(&j, e, "formula", json_string(molq_species_formula(sp[i])));
+            jset(&j, e, "name", json_string(molq_species_name(first)));
+            jset(&j, e, "formula", json_string(molq_species_formula(first)));
             jset(&j, e, "molar_mass",
-                 json_real(molq_species_molar_mass(sp[i]) * 1e3));
+                 json_real(molq_species_molar_mass(first) * 1e3));
             jset(&j, e, "has_formation_enthalpy",
-                 json_boolean(molq_species_has_formation_enthalpy(sp[i])));
-            rows = jcheck(&j, json_array());
-            jset(&j, e, "rows", rows);
-            for (t = 0; t < o->nT && !j.failed; t++) {
-                json_t *r;
-                if ((st = table_row(sp[i], o->T[t], o->p, o->per_mass, v)) !=
-                    MOLQ_OK) {
-                    eval_error(sp[i], o->T[t], o->p, st);
-                    json_decref(root);
-                    return EXIT_DATA;
+                 json_boolean(molq_species_has_formation_enthalpy(first)));
+            if (compare) {
+                models = jcheck(&j, json_array());
+                jset(&j, e, "models", models);
+            }
+            for (m = 0; m < nm && !j.failed; m++) {
+                const molq_species *x = sp[i * nm + m];
+                json_t *holder = e, *rows;
+                if (compare) {
+                    holder = jcheck(&j, json_object());
+                    jappend(&j, models, holder);
                 }
-                r = jcheck(&j, json_object());
-                jappend(&j, rows, r);
-                jset(&j, r, "T", json_real(o->T[t]));
-                for (k = 0; k < N_TABLE; k++)
-                    jset(&j, r, molq_property_name(table_props[k]),
-                         json_real(v[k]));
+                jset(&j, holder, "model",
+                     json_string(model_name(molq_species_model(x))));
+                rows = jcheck(&j, json_array());
+                jset(&j, holder, "rows", rows);
+                for (t = 0; t < o->nT && !j.failed; t++) {
+                    json_t *r;
+                    if ((st = table_row(x, o->T[t], o->p, o->per_mass, v)) !=
+                        MOLQ_OK) {
+                        eval_error(x, o->T[t], o->p, st);
+                        json_decref(root);
+                        return EXIT_DATA;
+                    }
+                    r = jcheck(&j, json_object());
+                    jappend(&j, rows, r);
+                    jset(&j, r, "T", json_real(o->T[t]));
+                    for (k = 0; k < N_TABLE; k++)
+                        jset(&j, r, molq_property_name(table_props[k]),
+                             json_real(v[k]));
+                }
             }
         }
         return json_finish(&j, root);
     }
 
     if (o->format == FMT_CSV) {
-        fputs("species,T", stdout);
+        fputs(compare ? "species,model,T" : "species,T", stdout);
         for (k = 0; k < N_TABLE; k++)
             printf(",%s", molq_property_name(table_props[k]));
         putchar('\n');
@@ -575,11 +715,15 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp)
     for (i = 0; i < nsp; i++) {
         if (o->format == FMT_TEXT) {
             putchar('\n');
-            text_species_title(sp[i]);
+            text_species_title(sp[i * nm], !compare);
             printf("%*s", TW, "T");
+            if (compare)
+                printf("%*s", TW, "model");
             for (k = 0; k < N_TABLE; k++)
                 printf("%*s", TW, molq_property_name(table_props[k]));
             printf("\n%*s", TW, "K");
+            if (compare)
+                printf("%*s", TW, "");
             for (k = 0; k < N_TABLE; k++) {
                 unit_of(table_props[k], o->per_mass, unit, sizeof unit);
                 printf("%*s", TW, unit);
@@ -587,23 +731,34 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp)
             putchar('\n');
         }
         for (t = 0; t < o->nT; t++) {
-            if ((st = table_row(sp[i], o->T[t], o->p, o->per_mass, v)) !=
-                MOLQ_OK) {
-                fflush(stdout);
-                eval_error(sp[i], o->T[t], o->p, st);
-                return EXIT_DATA;
+            for (m = 0; m < nm; m++) {
+                const molq_species *x = sp[i * nm + m];
+                const char *mname = model_name(molq_species_model(x));
+                if ((st = table_row(x, o->T[t], o->p, o->per_mass, v)) !=
+                    MOLQ_OK) {
+                    fflush(stdout);
+                    eval_error(x, o->T[t], o->p, st);
+                    return EXIT_DATA;
+                }
+                if (o->format == FMT_CSV) {
+                    csv_field(molq_species_name(x));
+                    if (compare)
+                        printf(",%s", mname);
+                    printf(",%.12g", o->T[t]);
+                    for (k = 0; k < N_TABLE; k++)
+                        printf(",%.12g", v[k]);
+                } else {
+                    printf("%*.8g", TW, o->T[t]);
+                    if (compare)
+                        printf("%*s", TW, mname);
+                    for (k = 0; k < N_TABLE; k++)
+                        printf(" %*.7g", TW - 1, v[k]);
+                }
+                putchar('\n');
             }
-            if (o->format == FMT_CSV) {
-                csv_field(molq_species_name(sp[i]));
-                printf(",%.12g", o->T[t]);
-                for (k = 0; k < N_TABLE; k++)
-                    printf(",%.12g", v[k]);
-            } else {
-                printf("%*.8g", TW, o->T[t]);
-                for (k = 0; k < N_TABLE; k++)
-                    printf(" %*.7g", TW - 1, v[k]);
-            }
-            putchar('\n');
+            /* A blank line between temperatures keeps the groups apart. */
+            if (compare && o->format == FMT_TEXT && t + 1 < o->nT)
+                putchar('\n');
         }
     }
     return 0;
@@ -688,6 +843,8 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
             json_t *e = jcheck(&j, json_object()), *rows, *names;
             jappend(&j, list, e);
             jset(&j, e, "name", json_string(molq_species_name(sp[i])));
+            jset(&j, e, "model",
+                 json_string(model_name(molq_species_model(sp[i]))));
             names = jcheck(&j, json_array());
             for (m = 0; m < nm; m++)
                 jappend(&j, names, json_string(mode_name(sp[i], m)));
@@ -737,7 +894,7 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
         size_t nm = molq_species_mode_count(sp[i]);
         if (o->format == FMT_TEXT) {
             putchar('\n');
-            text_species_title(sp[i]);
+            text_species_title(sp[i], 1);
         }
         for (t = 0; t < o->nT; t++) {
             if ((st = modes_eval(sp[i], o->T[t], o->p, pm, total)) !=
@@ -778,6 +935,116 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
 }
 
 /* ------------------------------------------------------------------------ */
+/* molq spin                                                                */
+/* ------------------------------------------------------------------------ */
+
+#define SPIN_COLUMN "h_frozen_minus_h_eq"
+
+/* h_frozen - h_equilibrium per mole or per kilogram. */
+static molq_status spin_value(const molq_species *sp, double T, int per_mass,
+                              double *out)
+{
+    molq_status st = molq_eval_spin_conversion(sp, T, out);
+    if (st == MOLQ_OK && per_mass)
+        *out /= molq_species_molar_mass(sp);
+    return st;
+}
+
+static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
+{
+    size_t i, t;
+    double v, Tmin = min_of(o->T, o->nT);
+    const char *unit = o->per_mass ? "J/kg" : "J/mol";
+    molq_status st;
+
+    for (i = 0; i < nsp; i++) {
+        if (molq_species_model(sp[i]) != MOLQ_MODEL_LEVELS) {
+            fprintf(stderr, "molq: species '%s' uses model '%s'; the spin "
+                    "conversion enthalpy needs model 'levels' (diatomics "
+                    "described by diatomic_states; --model levels switches "
+                    "a species that has them)\n",
+                    molq_species_name(sp[i]),
+                    model_name(molq_species_model(sp[i])));
+            return EXIT_DATA;
+        }
+        if ((st = spin_value(sp[i], Tmin, o->per_mass, &v)) != MOLQ_OK) {
+            eval_error(sp[i], Tmin, 0.0, st);
+            return EXIT_DATA;
+        }
+    }
+
+    if (o->format == FMT_JSON) {
+        jctx j = {0};
+        json_t *root = jcheck(&j, json_object());
+        json_t *units = jcheck(&j, json_object()), *list;
+        jset(&j, units, "T", json_string("K"));
+        jset(&j, units, SPIN_COLUMN, json_string(unit));
+        jset(&j, units, "molar_mass", json_string("g/mol"));
+        jset(&j, root, "units", units);
+        jset(&j, root, "basis", json_string(o->per_mass ? "mass" : "molar"));
+        list = jcheck(&j, json_array());
+        jset(&j, root, "species", list);
+        for (i = 0; i < nsp && !j.failed; i++) {
+            json_t *e = jcheck(&j, json_object()), *rows;
+            jappend(&j, list, e);
+            jset(&j, e, "name", json_string(molq_species_name(sp[i])));
+            jset(&j, e, "model",
+                 json_string(model_name(molq_species_model(sp[i]))));
+            jset(&j, e, "molar_mass",
+                 json_real(molq_species_molar_mass(sp[i]) * 1e3));
+            rows = jcheck(&j, json_array());
+            jset(&j, e, "rows", rows);
+            for (t = 0; t < o->nT && !j.failed; t++) {
+                json_t *r;
+                if ((st = spin_value(sp[i], o->T[t], o->per_mass, &v)) !=
+                    MOLQ_OK) {
+                    eval_error(sp[i], o->T[t], 0.0, st);
+                    json_decref(root);
+                    return EXIT_DATA;
+                }
+                r = jcheck(&j, json_object());
+                jappend(&j, rows, r);
+                jset(&j, r, "T", json_real(o->T[t]));
+                jset(&j, r, SPIN_COLUMN, json_real(v));
+            }
+        }
+        return json_finish(&j, root);
+    }
+
+    if (o->format == FMT_CSV)
+        puts("species,T," SPIN_COLUMN);
+    else
+        printf("molq ortho-para (even/odd-J) conversion enthalpy "
+               "h_frozen - h_equilibrium, per %s\n"
+               "(heat released when the frozen even/odd mixture relaxes to "
+               "spin equilibrium at T)\n",
+               o->per_mass ? "kilogram" : "mole");
+    for (i = 0; i < nsp; i++) {
+        if (o->format == FMT_TEXT) {
+            printf("\n");
+            text_species_title(sp[i], 1);
+            printf("%*s%*s\n%*s%*s\n", TW, "T", 2 * TW, SPIN_COLUMN, TW, "K",
+                   2 * TW, unit);
+        }
+        for (t = 0; t < o->nT; t++) {
+            if ((st = spin_value(sp[i], o->T[t], o->per_mass, &v)) !=
+                MOLQ_OK) {
+                fflush(stdout);
+                eval_error(sp[i], o->T[t], 0.0, st);
+                return EXIT_DATA;
+            }
+            if (o->format == FMT_CSV) {
+                csv_field(molq_species_name(sp[i]));
+                printf(",%.12g,%.12g\n", o->T[t], v);
+            } else {
+                printf("%*.8g %*.7g\n", TW, o->T[t], 2 * TW - 1, v);
+            }
+        }
+    }
+    return 0;
+}
+
+/* ------------------------------------------------------------------------ */
 /* molq list                                                                */
 /* ------------------------------------------------------------------------ */
 
@@ -789,7 +1056,7 @@ typedef struct entry {
 static int cmd_list(const options *o, const sets *s)
 {
     size_t nu = molq_db_count(s->user), nb = molq_db_count(s->builtin);
-    size_t n = 0, i, wn = 4, wf = 7, ws = 8;
+    size_t n = 0, i, wn = 4, wf = 7, ws = 8, wm = 5;
     entry *e = malloc((nu + nb) * sizeof *e);
     const molq_species *dummy;
     int rc = 0;
@@ -825,6 +1092,8 @@ static int cmd_list(const options *o, const sets *s)
             jset(&j, x, "name", json_string(molq_species_name(e[i].sp)));
             jset(&j, x, "formula", json_string(molq_species_formula(e[i].sp)));
             jset(&j, x, "structure", json_string(structure_of(e[i].sp)));
+            jset(&j, x, "model",
+                 json_string(model_name(molq_species_model(e[i].sp))));
             jset(&j, x, "molar_mass",
                  json_real(molq_species_molar_mass(e[i].sp) * 1e3));
             jset(&j, x, "has_formation_enthalpy",
@@ -836,13 +1105,14 @@ static int cmd_list(const options *o, const sets *s)
         return json_finish(&j, root);
     }
     if (o->format == FMT_CSV) {
-        puts("name,formula,structure,molar_mass,formation_enthalpy,set,"
+        puts("name,formula,structure,model,molar_mass,formation_enthalpy,set,"
              "source");
         for (i = 0; i < n; i++) {
             csv_field(molq_species_name(e[i].sp));
             putchar(',');
             csv_field(molq_species_formula(e[i].sp));
-            printf(",%s,%.12g,%s,", structure_of(e[i].sp),
+            printf(",%s,%s,%.12g,%s,", structure_of(e[i].sp),
+                   model_name(molq_species_model(e[i].sp)),
                    molq_species_molar_mass(e[i].sp) * 1e3,
                    molq_species_has_formation_enthalpy(e[i].sp) ? "yes"
                                                                 : "no");
@@ -858,6 +1128,8 @@ static int cmd_list(const options *o, const sets *s)
         size_t a = strlen(molq_species_name(e[i].sp));
         size_t b = strlen(molq_species_formula(e[i].sp));
         size_t c = strlen(e[i].set);
+        size_t d = strlen(model_name(molq_species_model(e[i].sp)));
+        wm = d > wm ? d : wm;
         wn = a > wn ? a : wn;
         wf = b > wf ? b : wf;
         ws = c > ws ? c : ws;
@@ -866,13 +1138,14 @@ static int cmd_list(const options *o, const sets *s)
         wn = 40;
     if (wf > 40)
         wf = 40;
-    printf("%-*s  %-*s  %-9s  %12s  %-4s  %-*s  %s\n", (int)wn, "name",
-           (int)wf, "formula", "structure", "M g/mol", "dfH", (int)ws, "set",
-           "source");
+    printf("%-*s  %-*s  %-9s  %-*s  %12s  %-4s  %-*s  %s\n", (int)wn,
+           "name", (int)wf, "formula", "structure", (int)wm, "model",
+           "M g/mol", "dfH", (int)ws, "set", "source");
     for (i = 0; i < n; i++)
-        printf("%-*s  %-*s  %-9s  %12.8g  %-4s  %-*s  %s\n", (int)wn,
+        printf("%-*s  %-*s  %-9s  %-*s  %12.8g  %-4s  %-*s  %s\n", (int)wn,
                molq_species_name(e[i].sp), (int)wf,
-               molq_species_formula(e[i].sp), structure_of(e[i].sp),
+               molq_species_formula(e[i].sp), structure_of(e[i].sp), (int)wm,
+               model_name(molq_species_model(e[i].sp)),
                molq_species_molar_mass(e[i].sp) * 1e3,
                molq_species_has_formation_enthalpy(e[i].sp) ? "yes" : "no",
                (int)ws, e[i].set, molq_species_source(e[i].sp));
@@ -896,27 +1169,59 @@ static int finish_output(int rc)
     return rc;
 }
 
+/* The species `base` with model_table entry `m` (-1: its own model):
+ * `base` itself when it already uses that model, else a new species stored
+ * in *owned (the caller frees it).  @return NULL after printing an error. */
+static const molq_species *with_model(const molq_species *base, int m,
+                                      molq_species **owned)
+{
+    char err[1024];
+    molq_status st;
+    *owned = NULL;
+    if (m < 0 || molq_species_model(base) == model_table[m].id)
+        return base;
+    st = molq_species_with_model(base, model_table[m].id, owned, err,
+                                 sizeof err);
+    if (st != MOLQ_OK) {
+        fprintf(stderr, "molq: species '%s' cannot use model '%s': %s (%s)\n",
+                molq_species_name(base), model_table[m].name, err,
+                molq_status_string(st));
+        *owned = NULL;
+        return NULL;
+    }
+    return *owned;
+}
+
+static int is_command(const char *word)
+{
+    int c;
+    for (c = 0; c < N_CMDS; c++)
+        if (strcmp(word, cmd_name[c]) == 0)
+            return 1;
+    return 0;
+}
+
 int main(int argc, char **argv)
 {
     options o;
     sets s = {NULL, NULL, NULL};
-    const molq_species **sp = NULL;
+    const molq_species **sp = NULL; /* nvar species to evaluate */
+    molq_species **owned = NULL;    /* those made here with another model */
+    size_t nvar = 0, nm = 1;
     int cmd, rc;
-    size_t i;
+    size_t i, k;
 
     if (argc < 2) {
-        fputs(help_text, stderr);
+        print_help(stderr);
         return EXIT_USAGE;
     }
     if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
         strcmp(argv[1], "help") == 0) {
-        if (strcmp(argv[1], "help") == 0 && argc > 2 &&
-            strcmp(argv[2], "table") != 0 && strcmp(argv[2], "modes") != 0 &&
-            strcmp(argv[2], "list") != 0) {
+        if (strcmp(argv[1], "help") == 0 && argc > 2 && !is_command(argv[2])) {
             usage_error("help: unknown command '%s'%s", argv[2], "");
             return EXIT_USAGE;
         }
-        fputs(help_text, stdout);
+        print_help(stdout);
         return finish_output(0);
     }
     if (strcmp(argv[1], "--version") == 0) {
@@ -924,13 +1229,13 @@ int main(int argc, char **argv)
                molq_version_string());
         return finish_output(0);
     }
-    for (cmd = 0; cmd < 3; cmd++)
+    for (cmd = 0; cmd < N_CMDS; cmd++)
         if (strcmp(argv[1], cmd_name[cmd]) == 0)
             break;
-    if (cmd == 3) {
+    if (cmd == N_CMDS) {
         usage_error(argv[1][0] == '-' ? "unknown option '%s'%s"
                                       : "unknown command '%s'%s (use table, "
-                                        "modes, list or help)",
+                                        "modes, spin, list or help)",
                     argv[1], "");
         return EXIT_USAGE;
     }
@@ -939,15 +1244,19 @@ int main(int argc, char **argv)
     o.cmd = cmd;
     o.p = MOLQ_P_STANDARD;
     o.format = FMT_TEXT;
+    o.model = -1;
     rc = parse_options(cmd, argc - 2, argv + 2, &o);
     if (rc != 0)
         goto out;
     if (o.help) {
-        fputs(help_text, stdout);
+        print_help(stdout);
         rc = finish_output(0);
         goto out;
     }
-    if (!o.T_owned) {
+    if (!o.T_owned && cmd == CMD_SPIN) {
+        o.T = (double *)default_T_spin;
+        o.nT = sizeof default_T_spin / sizeof default_T_spin[0];
+    } else if (!o.T_owned) {
         o.T = (double *)default_T;
         o.nT = sizeof default_T / sizeof default_T[0];
     }
@@ -957,21 +1266,44 @@ int main(int argc, char **argv)
         rc = finish_output(cmd_list(&o, &s));
         goto out;
     }
-    sp = malloc(o.nnames * sizeof *sp);
-    if (sp == NULL) {
+    /* Every species with each model asked for, species-major. */
+    if (o.ncompare > 0)
+        nm = o.ncompare;
+    nvar = o.nnames * nm;
+    sp = malloc(nvar * sizeof *sp);
+    owned = calloc(nvar, sizeof *owned);
+    if (sp == NULL || owned == NULL) {
         fputs("molq: out of memory\n", stderr);
         rc = EXIT_DATA;
         goto out;
     }
-    for (i = 0; i < o.nnames; i++)
-        if ((sp[i] = find_species(&s, o.names[i])) == NULL) {
+    for (i = 0; i < o.nnames; i++) {
+        const molq_species *base = find_species(&s, o.names[i]);
+        if (base == NULL) {
             rc = EXIT_DATA;
             goto out;
         }
-    rc = cmd == CMD_TABLE ? cmd_table(&o, sp, o.nnames)
-                          : cmd_modes(&o, sp, o.nnames);
+        for (k = 0; k < nm; k++) {
+            int m = o.ncompare > 0 ? (int)o.compare[k] : o.model;
+            sp[i * nm + k] = with_model(base, m, &owned[i * nm + k]);
+            if (sp[i * nm + k] == NULL) {
+                rc = EXIT_DATA;
+                goto out;
+            }
+        }
+    }
+    if (cmd == CMD_TABLE)
+        rc = cmd_table(&o, sp, o.nnames, nm, o.ncompare > 0);
+    else if (cmd == CMD_MODES)
+        rc = cmd_modes(&o, sp, o.nnames);
+    else
+        rc = cmd_spin(&o, sp, o.nnames);
     rc = finish_output(rc);
 out:
+    if (owned != NULL)
+        for (i = 0; i < nvar; i++)
+            molq_species_free(owned[i]);
+    free(owned);
     free(sp);
     free(o.names);
     if (o.T_owned)

@@ -8,9 +8,14 @@ each check:
   translation, classical rigid rotor, harmonic oscillator with the energy
   zero at the zero-point level, electronic level sum), written here from
   scratch with the SI 2019 exact constants h, k, N_A, c;
+* textbook ro-vibrational level sums (Dunham term values, even/odd-J
+  nuclear-spin weights, frozen or equilibrium spin isomers), written here
+  from scratch, for the level-sum model;
 * NIST-JANAF Thermochemical Tables, 4th ed. (Chase 1998) for a few
   standard entropies and heat capacities of the built-in species
   (values from memory, marked so);
+* the ortho-para conversion heat of normal hydrogen at 20 K, about
+  527 kJ/kg, a figure widely quoted in cryogenic practice (from memory);
 * the species files in tests/cli/data are INVENTED test data.
 """
 
@@ -28,6 +33,7 @@ from pathlib import Path
 CLI = os.environ.get("MOLQ_CLI")
 DATA = Path(__file__).resolve().parent / "data"
 DEMO = DATA / "demo_species.json"
+LEVELS = DATA / "demo_levels.json"
 BAD = DATA / "bad"
 
 # SI 2019: exact by definition.
@@ -41,6 +47,8 @@ T_REF = 298.15
 
 COLUMNS = ["cp", "cv", "h", "s", "g", "h_minus_h298", "gef", "dcp_dT"]
 CSV_HEADER = "species,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
+CSV_HEADER_COMPARE = "species,model,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
+MODELS = ["rrho", "levels"]
 DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
 BUILTIN = ["Ar", "O", "H2", "N2", "O2", "CO", "CO2", "H2O"]
 CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
@@ -67,7 +75,7 @@ def parse_csv(text):
     lines = text.splitlines()
     rows = []
     for r in csv.DictReader(io.StringIO(text)):
-        rows.append({k: (v if k in ("species", "mode") else float(v))
+        rows.append({k: (v if k in ("species", "mode", "model") else float(v))
                      for k, v in r.items()})
     return lines[0], rows
 
@@ -162,6 +170,148 @@ class Model:
             "gef": -(g - self.dfH) / T,
             "dcp_dT": dcv,
         }
+
+
+# --------------------------------------------------------------------------
+# Independent ro-vibrational level sum (textbook statistical mechanics)
+# --------------------------------------------------------------------------
+
+# Named spectroscopic constants as Dunham coefficients Y_kl (Herzberg's
+# notation): (k, l, sign).
+NAMED = {"we": (1, 0, 1.0), "wexe": (2, 0, -1.0), "weye": (3, 0, 1.0),
+         "weze": (4, 0, 1.0), "Be": (0, 1, 1.0), "alpha_e": (1, 1, -1.0),
+         "gamma_e": (2, 1, 1.0), "De": (0, 2, -1.0), "beta_e": (1, 2, -1.0),
+         "He": (0, 3, 1.0)}
+
+
+def dunham(state):
+    """6 x 4 Dunham matrix of a diatomic_states entry."""
+    y = [[0.0] * 4 for _ in range(6)]
+    for k, row in enumerate(state.get("dunham", [])):
+        for l, v in enumerate(row):
+            y[k][l] = v
+    for key, (k, l, sign) in NAMED.items():
+        if key in state:
+            y[k][l] = sign * state[key]
+    return y
+
+
+def term(y, te, v, J):
+    """Term value Te + sum Y_kl (v + 1/2)^k [J(J+1)]^l, cm^-1."""
+    x = J * (J + 1.0)
+    return te + sum(y[k][l] * (v + 0.5) ** k * x ** l
+                    for k in range(6) for l in range(4))
+
+
+def bound_levels(entry):
+    """All bound levels of a species-file entry as (theta in K, weight,
+    J parity), energies from the ground state's v = 0, J = 0 level.  A
+    vibrational ladder stops at D0 or where G(v) stops rising, a rotational
+    ladder at D0 or where E(J) stops rising.  Weight: electronic
+    degeneracy x nuclear-spin weight of the J parity x (2J + 1)."""
+    states = entry["diatomic_states"]
+    d0 = entry["dissociation_energy"]
+    e0 = term(dunham(states[0]), 0.0, 0, 0)
+    sigma = entry.get("symmetry_number", 1)
+    out = []
+    for st in states:
+        y, g = dunham(st), st.get("degeneracy", 1)
+        w = st.get("rotational_weights", [1.0 / sigma, 1.0 / sigma])
+        v, gprev = 0, -math.inf
+        while True:
+            G = term(y, st["Te"], v, 0) - e0
+            if not G < d0 or G <= gprev:
+                break
+            gprev = G
+            J, eprev = 0, -math.inf
+            while True:
+                e = term(y, st["Te"], v, J) - e0
+                if not e < d0 or e <= eprev:
+                    break
+                eprev = e
+                if w[J % 2] > 0:
+                    out.append((C2 * e, g * w[J % 2] * (2 * J + 1), J % 2))
+                J += 1
+            v += 1
+    return out
+
+
+def level_cumulants(levels, T):
+    """ln Q and the first three cumulants of theta (K) over the levels."""
+    tmin = min(t for t, _, _ in levels)
+    ws = [w * math.exp(-(t - tmin) / T) for t, w, _ in levels]
+    q = sum(ws)
+    m1 = sum(wi * t for wi, (t, _, _) in zip(ws, levels)) / q
+    c2 = sum(wi * (t - m1) ** 2 for wi, (t, _, _) in zip(ws, levels)) / q
+    c3 = sum(wi * (t - m1) ** 3 for wi, (t, _, _) in zip(ws, levels)) / q
+    return math.log(q) - tmin / T, m1, c2, c3
+
+
+class LevelSum(Model):
+    """A diatomic of the species file by explicit level sums: translation
+    as in Model, internal ln q, U, cv, dcv/dT from the bound levels.  A
+    frozen even/odd-J mixture of mole fractions x_p is an ideal mixture of
+    two gases: ln q = sum x_p (ln Q_p - ln x_p), energies and cumulants
+    x-weighted."""
+
+    def __init__(self, entry):
+        self.name = entry["name"]
+        self.M = entry["molar_mass"] * 1e-3
+        self.dfH = entry.get("formation_enthalpy_298", 0.0)
+        self.levels = bound_levels(entry)
+        self.frozen = None
+        if entry.get("spin_isomers") == "frozen":
+            x_odd = entry["odd_fraction"]
+            self.frozen = (1.0 - x_odd, x_odd)
+        w = entry["diatomic_states"][0].get("rotational_weights")
+        # High-temperature even/odd ratio of the ground state.
+        self.x_high = (w[0] / sum(w), w[1] / sum(w)) if w else None
+
+    def internal(self, T, x=None):
+        if x is None:
+            return level_cumulants(self.levels, T)
+        out = [0.0, 0.0, 0.0, 0.0]
+        for parity in (0, 1):
+            c = level_cumulants([l for l in self.levels if l[2] == parity], T)
+            out[0] += x[parity] * (c[0] - math.log(x[parity]))
+            for i in (1, 2, 3):
+                out[i] += x[parity] * c[i]
+        return tuple(out)
+
+    def parts(self, T, p):
+        m = self.M / N_A
+        lnq = (1.5 * math.log(2 * math.pi * m * K_B * T / H_PLANCK ** 2)
+               + math.log(K_B * T / p))
+        lq, m1, c2, c3 = self.internal(T, self.frozen)
+        return (lnq + lq, 1.5 * R * T + R * m1, 1.5 * R + R * c2 / T ** 2,
+                R * (c3 / T ** 4 - 2 * c2 / T ** 3))
+
+    def spin_conversion(self, T):
+        """h(frozen mixture) - h(equilibrium), J/mol: the species' own
+        frozen mixture, else the ground state's high-temperature ratio."""
+        x = self.frozen or self.x_high
+        return R * (self.internal(T, x)[1] - self.internal(T)[1])
+
+
+def rrho_entry(entry):
+    """The rigid-rotor / harmonic description a level-sum diatomic stands
+    for (molq.h, molq_species_with_model): B0 = Y01 + Y11/2 + Y21/4 and the
+    fundamental G(1) - G(0) of the ground state, the v = 0 levels of all
+    states as electronic levels; classical rotor as in the file."""
+    states = entry["diatomic_states"]
+    y = dunham(states[0])
+    e0 = term(y, 0.0, 0, 0)
+    return {
+        "name": entry["name"], "molar_mass": entry["molar_mass"],
+        "structure": "linear", "rotor": entry["rotor"],
+        "symmetry_number": entry.get("symmetry_number", 1),
+        "rotational_constants": [y[0][1] + y[1][1] / 2 + y[2][1] / 4],
+        "vibrations": [{"wavenumber": term(y, 0.0, 1, 0) - e0}],
+        "electronic_levels": [
+            {"energy": term(dunham(s), s["Te"], 0, 0) - e0,
+             "degeneracy": s.get("degeneracy", 1)} for s in states],
+        "formation_enthalpy_298": entry.get("formation_enthalpy_298", 0.0),
+    }
 
 
 def abs_floor(col, T, model_row):
@@ -375,6 +525,18 @@ class FiniteDifference(unittest.TestCase):
                     "demo-diatomic", "demo-atom"],
                    [30, 120, 298.15, 900, 3000, 9000])
 
+    def test_level_sums(self):
+        # Level-sum model: equilibrium and frozen spin isomers, excited
+        # state, Dunham matrix.
+        self.check(["--data", LEVELS, "demo-homo", "demo-homo-frozen",
+                    "demo-hetero", "O2"],
+                   [15, 40, 120, 298.15, 900, 3000, 6000])
+
+    def test_rrho_variants(self):
+        # The built-in diatomics switched to rigid rotor / harmonic.
+        self.check(["N2", "O2", "CO", "H2", "--model", "rrho"],
+                   [30, 150, 298.15, 1500, 4000])
+
 
 # Bad species files: file -> (substrings stderr must contain, species name
 # or None).  Field names as in the species-file format.
@@ -417,6 +579,21 @@ BAD_FILES = {
     "duplicate_name.json": (["'name'", "duplicate"], "demo-bad"),
     "structure_unknown.json": (["'structure'", "nonlinear"], "demo-bad"),
     "schema_version.json": (["'schema_version'"], None),
+    "model_unknown.json": (["'model'", "rrho", "levels"], "demo-bad"),
+    "levels_no_dissociation.json": (["'dissociation_energy'", "missing"],
+                                    "demo-bad"),
+    "levels_dunham_and_named.json": (["diatomic_states[0].dunham",
+                                      "not both"], "demo-bad"),
+    "levels_odd_fraction_alone.json": (["'odd_fraction'", "frozen"],
+                                       "demo-bad"),
+    "levels_weights_count.json": (["diatomic_states[0].rotational_weights",
+                                   "[even-J weight, odd-J weight]"],
+                                  "demo-bad"),
+    "levels_state_no_te.json": (["diatomic_states[0].Te", "missing"],
+                                "demo-bad"),
+    "levels_frozen_fraction_one.json": (["'odd_fraction'",
+                                         "between 0 and 1"], "demo-bad"),
+    "levels_on_atom.json": (["'diatomic_states'", "linear"], "demo-bad"),
 }
 
 # Bad command lines: args -> (exit code, substrings stderr must contain).
@@ -469,6 +646,38 @@ BAD_ARGS = [
      ["'H2O'", "T = 30", "temperature outside the validity range"]),
     (["modes", "N2", "H2O", "--T", "300,20", "--format", "json"], 1,
      ["'H2O'", "T = 20", "validity range"]),
+    # Models.
+    (["table", "N2", "--model", "harmonic"], 2,
+     ["--model", "unknown model 'harmonic'", "rrho or levels"]),
+    (["table", "N2", "--model", "Levels"], 2, ["--model", "'Levels'"]),
+    (["table", "N2", "--model", "rrho,levels"], 2,
+     ["--model", "'rrho,levels'"]),
+    (["table", "N2", "--model", ""], 2, ["--model", "empty"]),
+    (["table", "N2", "--model"], 2, ["--model", "needs a value"]),
+    (["table", "N2", "--model", "rrho", "--model", "rrho"], 2,
+     ["--model", "more than once"]),
+    (["table", "N2", "--compare", "rrho,anharmonic"], 2,
+     ["--compare", "unknown model 'anharmonic'", "rrho or levels"]),
+    (["table", "N2", "--compare", "rrho,rrho"], 2,
+     ["--compare", "'rrho' given twice"]),
+    (["table", "N2", "--compare", "rrho,"], 2, ["--compare", "empty entry"]),
+    (["table", "N2", "--compare", ""], 2, ["--compare", "empty"]),
+    (["table", "N2", "--model", "rrho", "--compare", "rrho,levels"], 2,
+     ["--model", "--compare", "exclude"]),
+    (["modes", "N2", "--compare", "rrho,levels"], 2,
+     ["--compare", "modes"]),
+    (["list", "--model", "rrho"], 2, ["--model", "list"]),
+    (["spin", "H2", "--p", "2e5"], 2, ["--p", "spin"]),
+    (["spin"], 2, ["at least one species"]),
+    # A species whose data cannot support the model: the library's
+    # message names the missing field.
+    (["table", "Ar", "--model", "levels"], 1,
+     ["'Ar'", "model 'levels'", "diatomic_states"]),
+    (["table", "N2", "CO2", "--compare", "rrho,levels"], 1,
+     ["'CO2'", "model 'levels'", "diatomic_states"]),
+    (["modes", "H2O", "--model", "levels"], 1, ["'H2O'", "diatomic_states"]),
+    (["spin", "CO2"], 1, ["'CO2'", "model 'rrho'", "levels"]),
+    (["spin", "H2", "--model", "rrho"], 1, ["'H2'", "model 'rrho'"]),
 ]
 
 
@@ -589,9 +798,10 @@ class BuiltinFormats(unittest.TestCase):
                                            delta=1e-6 * abs(r[c]) + 1e-9)
 
     def test_janaf_sanity(self):
-        # RRHO values of the built-in set at 298.15 K, 1 bar, against
-        # NIST-JANAF 1998 (values from memory).  Tolerances allow for the
-        # rigid-rotor / harmonic-oscillator model (no anharmonicity).
+        # Values of the built-in set at 298.15 K, 1 bar, with each
+        # species' own model and with every species as rigid rotor /
+        # harmonic oscillator, against NIST-JANAF 1998 (values from
+        # memory).  Tolerances allow for the simpler model.
         janaf = {  # name: (cp, s) J/(mol K)
             "Ar": (20.786, 154.845),
             "N2": (29.124, 191.609),
@@ -602,7 +812,10 @@ class BuiltinFormats(unittest.TestCase):
         }
         out = run_ok(self, "table", *janaf, "--T", "298.15", "--format",
                      "json")
-        for sp in json.loads(out)["species"]:
+        rrho = run_ok(self, "table", *janaf, "--T", "298.15", "--format",
+                      "json", "--model", "rrho")
+        for sp in (json.loads(out)["species"]
+                   + json.loads(rrho)["species"]):
             cp, s = janaf[sp["name"]]
             r = sp["rows"][0]
             self.assertAlmostEqual(r["cp"], cp, delta=0.01 * cp, msg=sp["name"])
@@ -641,24 +854,38 @@ class BuiltinFormats(unittest.TestCase):
         self.assertEqual(rhi["h"], rlo["h"])
 
     def test_modes_json_and_text(self):
-        doc = json.loads(run_ok(self, "modes", "O2", "H2O", "--T", "1000",
-                                "--format", "json"))
-        o2 = doc["species"][0]
-        self.assertEqual(o2["modes"], ["translation", "rotation",
-                                       "vibration", "electronic"])
-        row = o2["rows"][0]
-        self.assertEqual(row["T"], 1000)
-        for c in ("lnq", "cv", "s", "u"):
-            self.assertAlmostEqual(sum(m[c] for m in row["modes"]),
-                                   row["total"][c],
-                                   delta=1e-9 * abs(row["total"][c]))
-        tab = json.loads(run_ok(self, "table", "O2", "--T", "1000",
-                                "--format", "json"))
-        t = tab["species"][0]["rows"][0]
-        self.assertAlmostEqual(row["total"]["cv"], t["cv"], delta=1e-9)
-        self.assertAlmostEqual(row["total"]["s"], t["s"], delta=1e-9)
-        text = run_ok(self, "modes", "O2", "--T", "1000")
+        # O2 by default uses the level sum (one rovibronic mode); with
+        # --model rrho its rotation, vibration and electronic levels are
+        # separate modes.  Either way the modes add up to the totals and
+        # the totals equal `molq table` with the same model.
+        want_modes = {
+            None: ["translation", "rovibronic"],
+            "rrho": ["translation", "rotation", "vibration", "electronic"],
+            "levels": ["translation", "rovibronic"],
+        }
+        for model, kinds in want_modes.items():
+            extra = ["--model", model] if model else []
+            # H2O has no level-sum data.
+            names = ["O2"] if model == "levels" else ["O2", "H2O"]
+            doc = json.loads(run_ok(self, "modes", *names, "--T", "1000",
+                                    "--format", "json", *extra))
+            o2 = doc["species"][0]
+            self.assertEqual(o2["modes"], kinds)
+            self.assertEqual(o2["model"], model or "levels")
+            row = o2["rows"][0]
+            self.assertEqual(row["T"], 1000)
+            for c in ("lnq", "cv", "s", "u"):
+                self.assertAlmostEqual(sum(m[c] for m in row["modes"]),
+                                       row["total"][c],
+                                       delta=1e-9 * abs(row["total"][c]))
+            tab = json.loads(run_ok(self, "table", "O2", "--T", "1000",
+                                    "--format", "json", *extra))
+            t = tab["species"][0]["rows"][0]
+            self.assertAlmostEqual(row["total"]["cv"], t["cv"], delta=1e-9)
+            self.assertAlmostEqual(row["total"]["s"], t["s"], delta=1e-9)
+        text = run_ok(self, "modes", "O2", "--T", "1000", "--model", "rrho")
         self.assertIn("T = 1000 K", text)
+        self.assertIn("model rrho", text)
         for word in ("translation", "rotation", "vibration", "electronic",
                      "total", "J/(mol K)"):
             self.assertIn(word, text)
@@ -680,11 +907,25 @@ class BuiltinFormats(unittest.TestCase):
         self.assertEqual(info["demo-linear"]["molar_mass"], 58.3)
         self.assertEqual(info["demo-linear"]["set"], "file")
         self.assertEqual(info["N2"]["set"], "built-in")
+        # Each species' model: the file's demo species have none (rrho);
+        # the built-in diatomics default to the level sum.
+        self.assertEqual(info["demo-linear"]["model"], "rrho")
+        self.assertEqual({n: info[n]["model"] for n in BUILTIN},
+                         {"Ar": "rrho", "O": "rrho", "H2": "levels",
+                          "N2": "levels", "O2": "levels", "CO": "levels",
+                          "CO2": "rrho", "H2O": "rrho"})
+        text = run_ok(self, "list")
+        self.assertEqual(text.splitlines()[0].split()[:4],
+                         ["name", "formula", "structure", "model"])
+        self.assertRegex(text, r"(?m)^N2\s+N2\s+linear\s+levels\s")
+        self.assertRegex(text, r"(?m)^CO2\s+CO2\s+linear\s+rrho\s")
         self.assertIn("JANAF", info["CO2"]["source"])
         # csv: the quoted source with commas survives.
         rows = list(csv.DictReader(io.StringIO(
             run_ok(self, "list", "--format", "csv"))))
         self.assertEqual([r["name"] for r in rows], BUILTIN)
+        self.assertEqual([r["model"] for r in rows],
+                         [info[n]["model"] for n in BUILTIN])
         self.assertIn(",", rows[0]["source"] + rows[2]["source"])
 
     def test_data_file_searched_first(self):
@@ -707,12 +948,348 @@ class BuiltinFormats(unittest.TestCase):
             out = run_ok(self, *args)
             flat = " ".join(out.split())
             self.assertIn(CAUTION, flat)
-            for word in ("table", "modes", "list", "--data", "--T", "--p",
-                         "--format", "--per-mass", "J/(mol K)", "J/mol",
-                         "J/(mol K^2)", "START:STOP:STEP"):
+            for word in ("table", "modes", "list", "spin", "--data", "--T",
+                         "--p", "--format", "--per-mass", "--model",
+                         "--compare", "J/(mol K)", "J/mol", "J/(mol K^2)",
+                         "START:STOP:STEP", "h_frozen_minus_h_eq"):
                 self.assertIn(word, out)
+            # One line per model in the Models section.
+            for name in MODELS:
+                self.assertRegex(out, r"(?m)^  %s\s+\S" % name)
+            self.assertTrue(all(len(l) <= 80 for l in out.splitlines()))
+        for args in (["help", "spin"], ["spin", "--help"]):
+            run_ok(self, *args)
         out = run_ok(self, "--version")
         self.assertRegex(out, r"^molq \d+\.\d+\.\d+")
+
+
+def csv_rows(text):
+    """csv text -> list of lists of the raw fields (no float conversion)."""
+    return list(csv.reader(io.StringIO(text)))
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class ModelChoice(unittest.TestCase):
+    """6. --model: each species evaluated with the model asked for."""
+
+    def test_n2_2000K_against_janaf(self):
+        # NIST-JANAF Thermochemical Tables, 4th ed. (Chase 1998), nitrogen
+        # (N2) table, 2000 K: cp = 35.971 J/(mol K), S = 252.074 J/(mol K)
+        # (from memory).  The level sum includes the anharmonicity and
+        # vibration-rotation coupling that the rigid rotor / harmonic
+        # oscillator misses, so it must land closer.
+        cp_janaf, s_janaf = 35.971, 252.074
+        got = {}
+        for model in MODELS:
+            _, rows = parse_csv(run_ok(self, "table", "N2", "--T", "2000",
+                                       "--model", model, "--format", "csv"))
+            self.assertEqual(len(rows), 1)
+            got[model] = rows[0]
+        rrho, levels = got["rrho"], got["levels"]
+        self.assertGreater(abs(levels["cp"] - rrho["cp"]), 0.1)
+        self.assertLess(abs(levels["cp"] - cp_janaf),
+                        abs(rrho["cp"] - cp_janaf))
+        self.assertAlmostEqual(levels["cp"], cp_janaf, delta=0.02)
+        self.assertLess(abs(levels["s"] - s_janaf), abs(rrho["s"] - s_janaf))
+        self.assertAlmostEqual(levels["s"], s_janaf, delta=0.02)
+        # Rigid rotor / harmonic misses about 0.26 J/(mol K) of cp here
+        # (JANAF value above, from memory): it is not merely round-off.
+        self.assertAlmostEqual(rrho["cp"], cp_janaf, delta=0.5)
+
+    def test_default_is_own_model(self):
+        # Asking for the model a species already has changes nothing, to
+        # the last printed digit; CO2 has only rigid-rotor data.
+        for name, model in (("N2", "levels"), ("H2", "levels"),
+                            ("CO2", "rrho"), ("Ar", "rrho")):
+            with self.subTest(name=name):
+                a = run_ok(self, "table", name, "--format", "csv")
+                b = run_ok(self, "table", name, "--model", model, "--format",
+                           "csv")
+                self.assertEqual(a, b)
+        # A mixed list: --model rrho switches the diatomics only.
+        mixed = run_ok(self, "table", "N2", "CO2", "--model", "rrho",
+                       "--T", "1500", "--format", "csv")
+        own = run_ok(self, "table", "N2", "CO2", "--T", "1500", "--format",
+                     "csv")
+        self.assertEqual(mixed.splitlines()[0], CSV_HEADER)
+        self.assertNotEqual(mixed.splitlines()[1], own.splitlines()[1])
+        self.assertEqual(mixed.splitlines()[2], own.splitlines()[2])
+
+    def test_json_and_text_name_the_model(self):
+        doc = json.loads(run_ok(self, "table", "N2", "CO2", "--T", "500",
+                                "--format", "json", "--model", "rrho"))
+        self.assertEqual([s["model"] for s in doc["species"]],
+                         ["rrho", "rrho"])
+        doc = json.loads(run_ok(self, "table", "N2", "CO2", "--T", "500",
+                                "--format", "json"))
+        self.assertEqual([s["model"] for s in doc["species"]],
+                         ["levels", "rrho"])
+        text = run_ok(self, "table", "N2", "--T", "500", "--model", "rrho")
+        self.assertIn("model rrho", text)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class Compare(unittest.TestCase):
+    """7. --compare: one row per model for each species and T."""
+
+    TEMPS = "300,1000,2500"
+
+    def separate(self, names, model, fmt="csv", *extra):
+        return run_ok(self, "table", *names, "--T", self.TEMPS, "--model",
+                      model, "--format", fmt, *extra)
+
+    def test_csv_structure_and_values(self):
+        names = ["N2", "H2", "CO"]
+        for order in (["rrho", "levels"], ["levels", "rrho"]):
+            out = run_ok(self, "table", *names, "--T", self.TEMPS,
+                         "--compare", ",".join(order), "--format", "csv")
+            rows = csv_rows(out)
+            self.assertEqual(",".join(rows[0]), CSV_HEADER_COMPARE)
+            body = rows[1:]
+            temps = [float(t) for t in self.TEMPS.split(",")]
+            # species -> T -> model, in the order asked for.
+            self.assertEqual([(r[0], float(r[2]), r[1]) for r in body],
+                             [(n, t, m) for n in names for t in temps
+                              for m in order])
+            # Each row equals the same species/T/model from a --model run,
+            # as printed (same double, same format).
+            for model in order:
+                single = csv_rows(self.separate(names, model))[1:]
+                mine = [[r[0]] + r[2:] for r in body if r[1] == model]
+                self.assertEqual(mine, single)
+        # Without --compare the header stays as it always was.
+        out = run_ok(self, "table", "N2", "--format", "csv")
+        self.assertEqual(out.splitlines()[0], CSV_HEADER)
+
+    def test_json_structure(self):
+        doc = json.loads(run_ok(self, "table", "N2", "H2", "--T", self.TEMPS,
+                                "--compare", "rrho,levels", "--format",
+                                "json", "--per-mass", "--p", "3e5"))
+        self.assertEqual(doc["basis"], "mass")
+        self.assertEqual(doc["pressure"], 3e5)
+        self.assertEqual(doc["units"]["cp"], "J/(kg K)")
+        for sp in doc["species"]:
+            self.assertNotIn("rows", sp)
+            self.assertNotIn("model", sp)
+            self.assertEqual([m["model"] for m in sp["models"]],
+                             ["rrho", "levels"])
+            for m in sp["models"]:
+                single = json.loads(self.separate(
+                    [sp["name"]], m["model"], "json", "--per-mass", "--p",
+                    "3e5"))
+                self.assertEqual(m["rows"], single["species"][0]["rows"])
+        # The two models differ for H2 at 2500 K in cp.
+        h2 = doc["species"][1]["models"]
+        self.assertNotEqual(h2[0]["rows"][2]["cp"], h2[1]["rows"][2]["cp"])
+
+    def test_text(self):
+        out = run_ok(self, "table", "N2", "--T", self.TEMPS, "--compare",
+                     "rrho,levels")
+        lines = out.splitlines()
+        start = next(i for i, l in enumerate(lines) if l.startswith("N2  ("))
+        self.assertEqual(lines[start + 1].split(), ["T", "model"] + COLUMNS)
+        body = [l.split() for l in lines[start + 3:] if l.strip()]
+        self.assertEqual([(float(b[0]), b[1]) for b in body],
+                         [(t, m) for t in (300.0, 1000.0, 2500.0)
+                          for m in ("rrho", "levels")])
+        _, rows = parse_csv(run_ok(self, "table", "N2", "--T", self.TEMPS,
+                                   "--compare", "rrho,levels", "--format",
+                                   "csv"))
+        for b, r in zip(body, rows):
+            for v, c in zip(b[2:], COLUMNS):
+                self.assertAlmostEqual(float(v), r[c],
+                                       delta=1e-6 * abs(r[c]) + 1e-9)
+
+    def test_single_model_and_user_file(self):
+        out = run_ok(self, "table", "demo-hetero", "--data", LEVELS,
+                     "--compare", "rrho", "--format", "csv", "--T", "700")
+        self.assertEqual(out.splitlines()[0], CSV_HEADER_COMPARE)
+        self.assertEqual(len(out.splitlines()), 2)
+        self.assertTrue(out.splitlines()[1].startswith("demo-hetero,rrho,700,"))
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class SpinConversion(unittest.TestCase):
+    """8. molq spin: ortho-para conversion enthalpy h_frozen - h_eq."""
+
+    def rows(self, *args):
+        doc = json.loads(run_ok(self, "spin", *args, "--format", "json"))
+        return {s["name"]: s["rows"] for s in doc["species"]}
+
+    def test_normal_hydrogen_20K(self):
+        # Conversion of normal to equilibrium hydrogen at 20 K releases
+        # about 527 kJ/kg (cryogenic practice, from memory), i.e.
+        # 527 kJ/kg x 2.01588 g/mol = 1062 J/mol.
+        r = self.rows("H2", "--T", "20")["H2"][0]
+        self.assertEqual(r["T"], 20)
+        self.assertAlmostEqual(r["h_frozen_minus_h_eq"], 1062.0, delta=10.0)
+        doc = json.loads(run_ok(self, "spin", "H2", "--T", "20", "--format",
+                                "json", "--per-mass"))
+        self.assertEqual(doc["basis"], "mass")
+        self.assertEqual(doc["units"]["h_frozen_minus_h_eq"], "J/kg")
+        per_kg = doc["species"][0]["rows"][0]["h_frozen_minus_h_eq"]
+        self.assertAlmostEqual(per_kg, 527e3, delta=5e3)
+        self.assertAlmostEqual(per_kg * 2.01588e-3,
+                               r["h_frozen_minus_h_eq"], delta=1e-6)
+
+    def test_hydrogen_low_T_limit(self):
+        # T -> 0: equilibrium hydrogen is all para (J = 0); normal hydrogen
+        # keeps 3/4 of its molecules in J = 1, so the difference tends to
+        # (3/4) N_A hc E(J=1) with E(J=1) = 118.49 cm^-1 above J = 0 in
+        # v = 0 (H2 rotational term values, from memory).
+        r = self.rows("H2", "--T", "5")["H2"][0]
+        self.assertAlmostEqual(r["h_frozen_minus_h_eq"],
+                               0.75 * R * C2 * 118.49, delta=1.0)
+
+    def test_formats_and_defaults(self):
+        out = run_ok(self, "spin", "H2", "CO", "--format", "csv")
+        lines = out.splitlines()
+        self.assertEqual(lines[0], "species,T,h_frozen_minus_h_eq")
+        _, rows = parse_csv(out)
+        default_T = [20, 30, 40, 50, 77, 100, 150, 200, 298.15]
+        self.assertEqual([r["T"] for r in rows if r["species"] == "H2"],
+                         default_T)
+        h2 = [r["h_frozen_minus_h_eq"] for r in rows if r["species"] == "H2"]
+        # Normal hydrogen gives off less on conversion the warmer it is
+        # (the equilibrium mixture approaches 3:1 ortho:para).
+        self.assertTrue(all(a > b for a, b in zip(h2, h2[1:])), h2)
+        self.assertLess(h2[-1], 1.0)
+        # CO is heteronuclear: even and odd J weigh the same, nothing to
+        # convert.
+        for r in rows:
+            if r["species"] == "CO":
+                self.assertLess(abs(r["h_frozen_minus_h_eq"]), 1e-6)
+        text = run_ok(self, "spin", "H2", "--T", "20,77")
+        self.assertIn("h_frozen_minus_h_eq", text)
+        self.assertIn("model levels", text)
+        vals = [l.split() for l in text.splitlines()
+                if re.match(r"^\s+(20|77)\s", l)]
+        self.assertEqual(len(vals), 2)
+        self.assertAlmostEqual(float(vals[0][1]), h2[0],
+                               delta=1e-6 * h2[0])
+
+    def test_invented_species_against_level_sum(self):
+        doc = json.loads(LEVELS.read_text())
+        model = {e["name"]: LevelSum(e) for e in doc["species"]}
+        temps = [10, 20, 45, 100, 300]
+        got = self.rows("--data", LEVELS, "demo-homo", "demo-homo-frozen",
+                        "demo-hetero", "--T", ",".join(map(str, temps)))
+        for name in ("demo-homo", "demo-homo-frozen"):
+            for r in got[name]:
+                want = model[name].spin_conversion(r["T"])
+                self.assertAlmostEqual(r["h_frozen_minus_h_eq"], want,
+                                       delta=1e-9 * abs(want) + 1e-9,
+                                       msg="%s T=%g" % (name, r["T"]))
+        # The species' own frozen mixture (60 % odd) holds fewer odd-J
+        # molecules than equilibrium at 20 K: conversion takes up heat.
+        self.assertLess(got["demo-homo-frozen"][1]["h_frozen_minus_h_eq"],
+                        -1.0)
+        # A heteronuclear molecule has no spin isomers (molq.h: 0 for
+        # species without distinct even/odd weights).
+        for r in got["demo-hetero"][1:]:
+            self.assertLess(abs(r["h_frozen_minus_h_eq"]), 1e-6)
+
+    # Known library defect: below about 15 K the library reports a
+    # conversion enthalpy for heteronuclear species (15 J/mol for CO at
+    # 2 K), as if a 1:1 even/odd-J mixture were frozen, although molq.h
+    # promises 0 for equal even/odd weights.  Remove the decorator once
+    # lib/ is fixed.
+    @unittest.expectedFailure
+    def test_heteronuclear_cold_is_zero(self):
+        got = self.rows("--data", LEVELS, "CO", "demo-hetero", "--T",
+                        "2,5,10")
+        for name, rows in got.items():
+            for r in rows:
+                self.assertLess(abs(r["h_frozen_minus_h_eq"]), 1e-6,
+                                "%s at %g K" % (name, r["T"]))
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class LevelsFile(unittest.TestCase):
+    """9. A species file with diatomic_states (invented data) against the
+    level sums and rigid-rotor formulas written here."""
+
+    TEMPS = [12, 50, 120, 298.15, 1000, 3000, 6000]
+
+    def entries(self):
+        return json.loads(LEVELS.read_text())["species"]
+
+    def compare(self, models, extra, p):
+        names = [m.name for m in models]
+        out = run_ok(self, "table", *names, "--data", LEVELS, "--T",
+                     ",".join(str(t) for t in self.TEMPS), "--p", repr(p),
+                     "--format", "csv", *extra)
+        header, rows = parse_csv(out)
+        self.assertEqual(header, CSV_HEADER)
+        self.assertEqual(len(rows), len(models) * len(self.TEMPS))
+        by_name = {m.name: m for m in models}
+        for r in rows:
+            want = by_name[r["species"]].row(r["T"], p)
+            for col in COLUMNS:
+                tol = max(1e-9 * abs(want[col]),
+                          abs_floor(col, r["T"], want))
+                self.assertLessEqual(
+                    abs(r[col] - want[col]), tol,
+                    "%s at T=%g: %s cli %.12g, formula %.12g"
+                    % (r["species"], r["T"], col, r[col], want[col]))
+
+    def test_levels_model(self):
+        # Every entry uses the level sum: two say "model": "levels", the
+        # third gets it by default because it gives diatomic_states.
+        info = {s["name"]: s for s in json.loads(run_ok(
+            self, "list", "--data", LEVELS, "--format", "json"))["species"]}
+        for e in self.entries():
+            self.assertEqual(info[e["name"]]["model"], "levels")
+        models = [LevelSum(e) for e in self.entries()]
+        self.compare(models, [], 1e5)
+        self.compare(models, ["--model", "levels"], 4.2e6)
+
+    def test_rrho_variant(self):
+        models = [Model(rrho_entry(e)) for e in self.entries()]
+        self.compare(models, ["--model", "rrho"], 1e5)
+        self.compare(models, ["--model", "rrho"], 2e3)
+
+    def test_level_sum_sanity(self):
+        # The from-scratch level sum against facts of the trade: at high T
+        # the rotational levels of a homonuclear molecule with weights 1/4
+        # and 3/4 sum to T/(2 theta) like a classical rotor of symmetry
+        # number 2 (within theta/(3T)); a heteronuclear doublet gets
+        # ln 2 from its degeneracy.
+        e = {"name": "x", "molar_mass": 10.0, "dissociation_energy": 1e6,
+             "symmetry_number": 2,
+             "diatomic_states": [{"Te": 0, "Be": 2.0,
+                                  "rotational_weights": [0.25, 0.75]}]}
+        lq = level_cumulants(bound_levels(e), 3000.0)[0]
+        theta = C2 * 2.0
+        self.assertAlmostEqual(lq, math.log(3000.0 / (2 * theta)) +
+                               theta / (3 * 3000.0), delta=1e-6)
+        e["diatomic_states"][0]["degeneracy"] = 2
+        e["symmetry_number"] = 1
+        del e["diatomic_states"][0]["rotational_weights"]
+        lq2 = level_cumulants(bound_levels(e), 3000.0)[0]
+        self.assertAlmostEqual(lq2, math.log(2 * 3000.0 / theta) +
+                               theta / (3 * 3000.0), delta=1e-6)
+
+    def test_modes(self):
+        T, p = 800.0, 1e5
+        doc = json.loads(run_ok(self, "modes", "demo-homo", "--data", LEVELS,
+                                "--T", T, "--format", "json"))
+        sp = doc["species"][0]
+        self.assertEqual(sp["model"], "levels")
+        self.assertEqual(sp["modes"], ["translation", "rovibronic"])
+        rv = sp["rows"][0]["modes"][1]
+        model = LevelSum(self.entries()[0])
+        lq, m1, c2, _ = model.internal(T)
+        self.assertAlmostEqual(rv["lnq"], lq, delta=1e-10 * abs(lq))
+        self.assertAlmostEqual(rv["u"], R * m1, delta=1e-9 * R * m1)
+        self.assertAlmostEqual(rv["cv"], R * c2 / T ** 2, delta=1e-10)
+        self.assertAlmostEqual(rv["s"], R * lq + R * m1 / T, delta=1e-9)
+        doc = json.loads(run_ok(self, "modes", "demo-homo", "--data", LEVELS,
+                                "--T", T, "--format", "json", "--model",
+                                "rrho"))
+        self.assertEqual(doc["species"][0]["modes"],
+                         ["translation", "rotation", "vibration",
+                          "electronic"])
 
 
 if __name__ == "__main__":

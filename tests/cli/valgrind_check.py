@@ -27,6 +27,19 @@ CASES = [
     (["table", "H2O", "--T", "300,30", "--format", "json"], 1),
     (["table", "N2", "--T", "300:200:10"], 2),
     (["table", "N2", "--T", "1,2,nan"], 2),
+    # Models: variants made with molq_species_with_model are freed.
+    (["table", "N2", "H2", "demo-homo", "--data",
+      str(DATA / "demo_levels.json"), "--compare", "rrho,levels",
+      "--format", "json"], 0),
+    (["table", "N2", "O2", "CO2", "--model", "rrho", "--format", "csv"], 0),
+    (["modes", "demo-hetero", "--data", str(DATA / "demo_levels.json"),
+      "--model", "rrho"], 0),
+    (["spin", "H2", "demo-homo-frozen", "--data",
+      str(DATA / "demo_levels.json"), "--per-mass"], 0),
+    (["table", "N2", "CO2", "--compare", "rrho,levels"], 1),
+    (["spin", "H2", "CO2"], 1),
+    (["table", "N2", "--compare", "rrho,rrho"], 2),
+    (["table", "N2", "--model", "harmonic"], 2),
 ]
 
 failed = 0
