@@ -13,6 +13,7 @@
 #include <stddef.h>
 
 #include "core/cumulants.h"
+#include "core/lnq_table.h"
 #include "molq/molq.h"
 
 typedef struct molq_mode molq_mode;
@@ -52,6 +53,7 @@ typedef struct molq_rovib_params {
     int frozen;             /* frozen even/odd mixture */
     double x_odd;           /* odd mole fraction of the frozen mixture */
     double x_odd_normal;    /* high-temperature odd fraction */
+    molq_lnq_table table;   /* interpolation of the exact sum */
 } molq_rovib_params;
 
 typedef struct molq_levels_params {
@@ -69,7 +71,8 @@ struct molq_mode {
         molq_levels_params lev; /* vibration (harmonic) and electronic */
         molq_rovib_params rv;
     } u;
-    void *owned; /* memory the mode allocated at init, freed with it */
+    void *owned, *owned2; /* memory the mode allocated at init, freed
+                             with it */
 };
 
 /* Translation of a particle of molar mass M (kg/mol), Sackur-Tetrode. */

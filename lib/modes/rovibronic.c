@@ -14,6 +14,12 @@
  * its own sum Q_p (energies from the common zero), combined as
  *   ln q = sum x_p (ln Q_p - ln x_p),  k_n = sum x_p k_n,p  (n = 1, 2, 3)
  * which gives the mixture's U, Cv and S including its ideal mixing term.
+ *
+ * Speed: an exact sum costs one exp per populated level (thousands for N2
+ * at combustion temperatures), so at build time the sum is sampled on a
+ * ln T grid (core/lnq_table.h) from TABLE_T_LO to TABLE_T_HI and evaluated
+ * by interpolation with exact-derivative consistency; outside that range
+ * the exact sum is used.
  */
 #include <math.h>
 #include <stdlib.h>
@@ -22,6 +28,9 @@
 #include "modes/modes.h"
 
 #define CUTOFF 60.0      /* exp(-60) = 9e-27 */
+#define TABLE_T_LO 10.0  /* K; below, the exact sum is cheap */
+#define TABLE_T_HI 50000.0
+#define TABLE_STEP 0.03  /* in ln T; see tests/test_table.c */
 #define MAX_J 1000000u   /* guard against ladders that never turn over */
 #define MAX_V 100000u
 
@@ -187,15 +196,22 @@ static void equilibrium_sum(const molq_rovib_params *r, double T,
     finish(&m, 0.0, T, out);
 }
 
+static void exact_sum(const void *ctx, double T, molq_cumulants *out)
+{
+    const molq_rovib_params *r = ctx;
+    if (r->frozen)
+        frozen_sum(r, r->x_odd, T, out);
+    else
+        equilibrium_sum(r, T, out);
+}
+
 static void eval_rovibronic(const molq_mode *m, double T, double p,
                             unsigned need, molq_cumulants *out)
 {
     (void)p;
     (void)need;
-    if (m->u.rv.frozen)
-        frozen_sum(&m->u.rv, m->u.rv.x_odd, T, out);
-    else
-        equilibrium_sum(&m->u.rv, T, out);
+    if (molq_lnq_table_eval(&m->u.rv.table, T, out) != 0)
+        exact_sum(&m->u.rv, T, out);
 }
 
 double molq_rovibronic_conversion(const molq_mode *m, double T)
@@ -256,5 +272,12 @@ int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
     m->u.rv.frozen = frozen;
     m->u.rv.x_odd = x_odd;
     m->u.rv.x_odd_normal = st[0].w_odd / (st[0].w_even + st[0].w_odd);
+    if (molq_lnq_table_build(&m->u.rv.table, TABLE_T_LO, TABLE_T_HI,
+                             TABLE_STEP, exact_sum, &m->u.rv) != 0) {
+        free(block);
+        m->owned = NULL;
+        return -1;
+    }
+    m->owned2 = m->u.rv.table.node;
     return 0;
 }

@@ -184,8 +184,10 @@ void molq_species_destroy(molq_species *sp)
     size_t i;
     if (sp == NULL)
         return;
-    for (i = 0; i < sp->nmodes; i++)
+    for (i = 0; i < sp->nmodes; i++) {
         free(sp->modes[i].owned);
+        free(sp->modes[i].owned2);
+    }
     molq_spec_free(sp->spec);
     free(sp->name);
     free(sp->formula);
