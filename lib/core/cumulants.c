@@ -98,3 +98,31 @@ void molq_cumulants_add_harmonic(double x, double d, unsigned need,
     if (need & MOLQ_NEED_K3)
         acc->k3 += d * r * x * x * (1.0 + e) / (om * om);
 }
+
+#define SORTED_CUTOFF 60.0
+
+void molq_moments_add_sorted(const double *theta, const double *w, size_t n,
+                             double zero, double T, molq_moments *m)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        double y = (theta[i] - zero) / T, e;
+        if (y > SORTED_CUTOFF)
+            break;
+        e = w[i] * exp(-y);
+        m->q += e;
+        m->m1 += e * y;
+        m->m2 += e * y * y;
+        m->m3 += e * y * y * y;
+    }
+}
+
+void molq_moments_finish(const molq_moments *m, double zero, double T,
+                         molq_cumulants *out)
+{
+    double mean = m->m1 / m->q, r2 = m->m2 / m->q;
+    out->lnq = log(m->q) - zero / T;
+    out->k1 = mean + zero / T;
+    out->k2 = r2 - mean * mean;
+    out->k3 = m->m3 / m->q - 3.0 * mean * r2 + 2.0 * mean * mean * mean;
+}

@@ -35,6 +35,21 @@ void molq_cumulants_levels(const double *theta, const double *g, size_t n,
 void molq_cumulants_series(const double *c, size_t n, double y,
                            unsigned need, molq_cumulants *out);
 
+/* Raw moments of y = (theta - zero)/T over a level list sorted by theta:
+ * q = sum w e^-y, m_n = sum w y^n e^-y.  The sum stops once y exceeds 60
+ * (terms below 1e-26 of the first), so a long sorted list costs only its
+ * populated part. */
+typedef struct molq_moments {
+    double q, m1, m2, m3;
+} molq_moments;
+
+void molq_moments_add_sorted(const double *theta, const double *w, size_t n,
+                             double zero, double T, molq_moments *m);
+
+/* Cumulants of a sum whose energies were shifted down by `zero` (K). */
+void molq_moments_finish(const molq_moments *m, double zero, double T,
+                         molq_cumulants *out);
+
 /* One harmonic oscillator with x = Theta/T, times weight d (degeneracy),
  * added to acc.  Uses exp(-x) and expm1 only; finite for any x >= 0
  * including +inf (which contributes nothing). */

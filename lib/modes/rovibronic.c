@@ -27,7 +27,6 @@
 #include "core/constants.h"
 #include "modes/modes.h"
 
-#define CUTOFF 60.0      /* exp(-60) = 9e-27 */
 #define TABLE_T_LO 10.0  /* K; below, the exact sum is cheap */
 #define TABLE_T_HI 50000.0
 #define TABLE_STEP 0.03  /* in ln T; see tests/test_table.c */
@@ -133,38 +132,6 @@ static int sort_list(double *theta, double *w, size_t n)
     return 0;
 }
 
-typedef struct moments {
-    double q, m1, m2, m3;
-} moments;
-
-/* Raw moments of y = (theta - zero)/T over a sorted list. */
-static void sum_list(const double *theta, const double *w, size_t n,
-                     double zero, double T, moments *m)
-{
-    size_t i;
-    for (i = 0; i < n; i++) {
-        double y = (theta[i] - zero) / T, e;
-        if (y > CUTOFF)
-            break;
-        e = w[i] * exp(-y);
-        m->q += e;
-        m->m1 += e * y;
-        m->m2 += e * y * y;
-        m->m3 += e * y * y * y;
-    }
-}
-
-/* Cumulants of a sum whose energies were shifted down by `zero`. */
-static void finish(const moments *m, double zero, double T,
-                   molq_cumulants *out)
-{
-    double mean = m->m1 / m->q, r2 = m->m2 / m->q;
-    out->lnq = log(m->q) - zero / T;
-    out->k1 = mean + zero / T;
-    out->k2 = r2 - mean * mean;
-    out->k3 = m->m3 / m->q - 3.0 * mean * r2 + 2.0 * mean * mean * mean;
-}
-
 static void frozen_sum(const molq_rovib_params *r, double x_odd, double T,
                        molq_cumulants *out)
 {
@@ -174,12 +141,13 @@ static void frozen_sum(const molq_rovib_params *r, double x_odd, double T,
     x[1] = x_odd;
     out->lnq = out->k1 = out->k2 = out->k3 = 0.0;
     for (p = 0; p < 2; p++) {
-        moments m = {0.0, 0.0, 0.0, 0.0};
+        molq_moments m = {0.0, 0.0, 0.0, 0.0};
         molq_cumulants c;
         if (r->n[p] == 0 || x[p] == 0.0)
             continue;
-        sum_list(r->theta[p], r->w[p], r->n[p], r->theta[p][0], T, &m);
-        finish(&m, r->theta[p][0], T, &c);
+        molq_moments_add_sorted(r->theta[p], r->w[p], r->n[p], r->theta[p][0],
+                                T, &m);
+        molq_moments_finish(&m, r->theta[p][0], T, &c);
         out->lnq += x[p] * (c.lnq - log(x[p]));
         out->k1 += x[p] * c.k1;
         out->k2 += x[p] * c.k2;
@@ -190,10 +158,10 @@ static void frozen_sum(const molq_rovib_params *r, double x_odd, double T,
 static void equilibrium_sum(const molq_rovib_params *r, double T,
                             molq_cumulants *out)
 {
-    moments m = {0.0, 0.0, 0.0, 0.0};
-    sum_list(r->theta[0], r->w[0], r->n[0], 0.0, T, &m);
-    sum_list(r->theta[1], r->w[1], r->n[1], 0.0, T, &m);
-    finish(&m, 0.0, T, out);
+    molq_moments m = {0.0, 0.0, 0.0, 0.0};
+    molq_moments_add_sorted(r->theta[0], r->w[0], r->n[0], 0.0, T, &m);
+    molq_moments_add_sorted(r->theta[1], r->w[1], r->n[1], 0.0, T, &m);
+    molq_moments_finish(&m, 0.0, T, out);
 }
 
 static void exact_sum(const void *ctx, double T, molq_cumulants *out)
