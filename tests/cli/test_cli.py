@@ -1228,6 +1228,11 @@ class LevelsFile(unittest.TestCase):
             for col in COLUMNS:
                 tol = max(1e-9 * abs(want[col]),
                           abs_floor(col, r["T"], want))
+                if col == "dcp_dT":
+                    # The library interpolates level sums in ln T; its
+                    # third cumulant carries about 5e-9 (lib/core/
+                    # lnq_table.h), i.e. 5e-9 R/T in dcp_dT.
+                    tol = max(tol, 5e-8 * R / r["T"])
                 self.assertLessEqual(
                     abs(r[col] - want[col]), tol,
                     "%s at T=%g: %s cli %.12g, formula %.12g"

@@ -19,7 +19,16 @@ Main objects
 ``molq.Database.builtin()`` / ``.from_file(path)`` / ``.from_string(text)``
     species sets; ``len(db)``, ``db.names()``, ``db["N2"]``, iteration.
 ``molq.Species.from_constants(name, structure=..., molar_mass=..., ...)``
-    a species from your own constants.
+    a species from your own constants (rigid rotor / harmonic, or a
+    diatomic's electronic states for the level sum: ``diatomic_states=``,
+    ``dissociation_energy=``, ``model=``).
+``sp.model``, ``sp.with_model("rrho")``, ``molq.model_names()``
+    the model a species uses ("rrho": rigid rotor, harmonic vibrations,
+    electronic level list; "levels": sum over the bound ro-vibrational
+    levels of a diatomic) and a copy of it with another model.
+``sp.spin_conversion(T)``
+    ortho-para conversion enthalpy h_frozen - h_equilibrium, J/mol
+    (levels model).
 ``sp.eval(prop, T, p)`` and the shortcuts ``sp.cp``, ``cv``, ``h``, ``u``,
 ``s``, ``g``, ``a``, ``lnq``, ``gef``, ``h_minus_h298``, ``h_minus_h0``,
 ``dcp_dT``; ``sp.eval_per_mass``, ``sp.eval_many``, ``sp.modes(T, p)``.
@@ -62,6 +71,12 @@ constants::
     temps = [340.0, 370.0, 400.0, 430.0]
     print(dict(zip(temps, db["H2O"].cp(temps))))
 
+    # N2 uses the diatomic level sum; its rigid-rotor / harmonic variant
+    # for comparison, and the models the library offers
+    n2 = db["N2"]
+    print(n2.model, n2.cp(T_in), n2.with_model("rrho").cp(T_in))
+    print(molq.model_names())
+
     # an invented diatomic tracer from its constants (molar mass in g/mol)
     xd = molq.Species.from_constants(
         "Xd", structure="linear", molar_mass=45.0, symmetry_number=1,
@@ -87,6 +102,7 @@ from ._core import (  # noqa: F401  (re-exported API)
     MolqError,
     Database,
     Species,
+    model_names,
     property_names,
     property_unit,
     status_string,
@@ -102,7 +118,7 @@ __version__ = "0.1.0"
 
 __all__ = [
     "P_STANDARD", "T_REF", "STATUS_NAMES", "MolqError", "Database",
-    "Species", "property_names", "property_unit", "status_string",
+    "Species", "model_names", "property_names", "property_unit", "status_string",
     "version", "library_path",
     "EARG", "ENOMEM", "EIO", "ESYNTAX", "EKEY", "ETYPE", "EVALUE",
     "EDUPLICATE", "ENOTFOUND", "EDOMAIN", "ERANGE", "ELIMIT",

@@ -7,6 +7,7 @@ g/mol on the Python side (kg/mol in the C library); spectroscopic inputs
 in cm^-1.
 """
 
+import collections.abc
 import ctypes
 import numbers
 import operator
@@ -48,6 +49,27 @@ _MOLQ_LNQ, _MOLQ_U, _MOLQ_CV, _MOLQ_S = 0, 4, 2, 5
 _STRUCTURES = {"atom": 0, "linear": 1, "nonlinear": 2}
 _ROTORS = {"corrected": 0, "classical": 1}
 _INT_CLAMP = 1000000000
+
+# The library's models (molq_model) by the names species files use.  A new
+# model needs one entry here and nothing else in the binding.
+_MODELS = {
+    "rrho": 0,    # rigid rotor, harmonic vibrations, electronic level list
+    "levels": 1,  # diatomics: sum over bound ro-vibrational levels
+}
+_MODEL_BY_ID = {v: k for k, v in _MODELS.items()}
+
+# Named spectroscopic constants of a diatomic state as Dunham coefficients
+# Y_kl: name -> (k, l, sign), as in molq.h (molq_spec_set_dunham) and the
+# species-file reader.
+_NAMED_CONSTANTS = {
+    "we": (1, 0, 1.0), "wexe": (2, 0, -1.0), "weye": (3, 0, 1.0),
+    "weze": (4, 0, 1.0), "Be": (0, 1, 1.0), "alpha_e": (1, 1, -1.0),
+    "gamma_e": (2, 1, 1.0), "De": (0, 2, -1.0), "beta_e": (1, 2, -1.0),
+    "He": (0, 3, 1.0),
+}
+_STATE_KEYS = ("label", "Te", "degeneracy", "rotational_weights",
+               "dunham") + tuple(_NAMED_CONSTANTS)
+_DUNHAM_ROWS, _DUNHAM_COLS = 6, 4  # powers of (v + 1/2), of J(J+1)
 
 
 class MolqError(Exception):
@@ -142,6 +164,23 @@ def _prop_id(name):
                      % (name, ", ".join(_PROPS)))
 
 
+def model_names():
+    """Names of the models this binding knows, in the library's order
+    (``["rrho", "levels"]``): ``"rrho"`` rigid rotor, harmonic vibrations
+    and an electronic level list; ``"levels"`` (diatomics) explicit sum over
+    the bound ro-vibrational levels of each electronic state."""
+    return list(_MODELS)
+
+
+def _model_id(name):
+    try:
+        return _MODELS[name]
+    except (KeyError, TypeError):
+        pass
+    raise ValueError("unknown model %r; known models: %s"
+                     % (name, ", ".join(_MODELS)))
+
+
 def version():
     """Version string of the loaded C library, e.g. ``"0.1.0"``."""
     return _lib.VERSION_STRING
@@ -233,7 +272,9 @@ class Species:
                        symmetry_number=1, rotational_constants=(),
                        vibrations=(), electronic_levels=(),
                        formation_enthalpy=None, formula=None,
-                       rotor="corrected", source=None):
+                       rotor="corrected", source=None, model=None,
+                       diatomic_states=None, dissociation_energy=None,
+                       spin_isomers="equilibrium", odd_fraction=None):
         """Build a species from molecular constants.
 
         Args:
@@ -258,6 +299,26 @@ class Species:
             rotor: ``"corrected"`` (rigid rotor with quantum corrections,
                 the default) or ``"classical"`` (textbook high-T rotor).
             source: free-text citation of the data.
+            model: ``"rrho"`` or ``"levels"`` (see :func:`model_names`);
+                None: ``"levels"`` when diatomic_states are given, else
+                ``"rrho"``.
+            diatomic_states: for the level sum of a diatomic, a list of
+                dicts with the keys of the species file: ``"Te"`` (cm^-1,
+                0 for the ground state; required), ``"degeneracy"``
+                (default 1), ``"label"`` (text, not used), the term values
+                either as named constants ``"we"``, ``"wexe"``, ``"weye"``,
+                ``"weze"``, ``"Be"``, ``"alpha_e"``, ``"gamma_e"``,
+                ``"De"``, ``"beta_e"``, ``"He"`` (cm^-1) or as
+                ``"dunham"``: rows of Y_kl (row k = power of v + 1/2, at
+                most 6; column l = power of J(J+1), at most 4), and
+                ``"rotational_weights"``: ``[even, odd]`` nuclear-spin
+                weights of even- and odd-J levels (H2: [0.25, 0.75]).
+            dissociation_energy: D0 of the ground state from its lowest
+                level, cm^-1 (required by the levels model).
+            spin_isomers: ``"equilibrium"`` (default) or ``"frozen"``: even-
+                and odd-J molecules as a mixture of fixed composition, whose
+                odd-J mole fraction is `odd_fraction` (0.75 for normal
+                hydrogen).
 
         Raises:
             MolqError: the library rejected a value; the message names the
@@ -275,6 +336,22 @@ class Species:
         except (KeyError, TypeError):
             raise ValueError("rotor must be one of %s, not %r"
                              % (", ".join(_ROTORS), rotor)) from None
+        model_id = None if model is None else _model_id(model)
+        if spin_isomers not in ("equilibrium", "frozen"):
+            raise ValueError("spin_isomers must be 'equilibrium' or "
+                             "'frozen', not %r" % (spin_isomers,))
+        if spin_isomers == "frozen" and odd_fraction is None:
+            raise ValueError("spin_isomers='frozen' needs odd_fraction, the "
+                             "mole fraction of odd-J molecules (0.75 for "
+                             "normal hydrogen)")
+        if spin_isomers == "equilibrium" and odd_fraction is not None:
+            raise ValueError("odd_fraction is only meaningful with "
+                             "spin_isomers='frozen'")
+        if diatomic_states is None:
+            diatomic_states = ()
+        elif isinstance(diatomic_states, collections.abc.Mapping):
+            raise TypeError("diatomic_states must be a list of dicts (one "
+                            "per electronic state), not a single dict")
         who = "species %r" % (name,)
 
         def check(status, field):
@@ -317,6 +394,16 @@ class Species:
                                                     "electronic_levels")):
                 check(_L.molq_spec_add_electronic_level(spec, value, deg),
                       "electronic_levels[%d]" % i)
+            if model_id is not None:
+                check(_L.molq_spec_set_model(spec, model_id), "model")
+            if dissociation_energy is not None:
+                check(_L.molq_spec_set_dissociation_energy(
+                    spec, float(dissociation_energy)), "dissociation_energy")
+            if spin_isomers == "frozen":
+                check(_L.molq_spec_set_spin_isomers_frozen(
+                    spec, float(odd_fraction)), "odd_fraction")
+            for i, state in enumerate(diatomic_states):
+                _add_diatomic_state(spec, i, state, check)
             out = ctypes.c_void_p()
             buf = _lib.errbuf()
             status = _L.molq_species_create(spec, ctypes.byref(out), buf,
@@ -373,6 +460,36 @@ class Species:
         return _L.molq_species_molar_mass(self._ptr) * 1e3
 
     @property
+    def model(self):
+        """Name of the model the species uses: ``"rrho"`` or ``"levels"``
+        (see :func:`model_names`)."""
+        mid = _L.molq_species_model(self._ptr)
+        return _MODEL_BY_ID.get(mid, "unknown model %d" % mid)
+
+    def with_model(self, model):
+        """A new Species from the same data with another model, e.g.
+        ``db["N2"].with_model("rrho")`` to compare the rigid-rotor /
+        harmonic result with the level sum.  A diatomic given only by its
+        states gets B0, the fundamental G(1) - G(0) and the states' v = 0
+        levels for ``"rrho"``.  The new species does not depend on this one
+        (or its database).
+
+        Raises:
+            ValueError: unknown model name.
+            MolqError: the data do not support the model (``EVALUE``; the
+                message names the missing field).
+        """
+        mid = _model_id(model)
+        out = ctypes.c_void_p()
+        buf = _lib.errbuf()
+        status = _L.molq_species_with_model(self._ptr, mid, ctypes.byref(out),
+                                            buf, _lib.ERRLEN)
+        if status != 0:
+            _fail(status, buf, "species %r with model %r" % (self.name,
+                                                             model))
+        return Species._wrap(out.value, owned=True)
+
+    @property
     def t_min(self):
         """Lowest temperature in K at which every model of the species is
         valid (0.0 when there is no lower limit)."""
@@ -401,8 +518,9 @@ class Species:
     def __repr__(self):
         if self._h.ptr is None:
             return "<molq.Species (closed)>"
-        return "<molq.Species %r formula=%r molar_mass=%.6g g/mol>" % (
-            self.name, self.formula, self.molar_mass)
+        return ("<molq.Species %r formula=%r molar_mass=%.6g g/mol "
+                "model=%s>" % (self.name, self.formula, self.molar_mass,
+                               self.model))
 
     # -- evaluation ----------------------------------------------------------
 
@@ -520,11 +638,59 @@ class Species:
             self._raise_eval(status, ",".join(props), T, p)
         return dict(zip(props, out))
 
+    def spin_conversion(self, T):
+        """Ortho-para conversion enthalpy h_frozen - h_equilibrium in J/mol
+        at temperature(s) T in K: the heat released per mole when the
+        frozen even/odd-J mixture (the species' own, or else the ground
+        state's high-temperature ratio, e.g. normal hydrogen) relaxes to
+        spin equilibrium at T.  Levels model only.
+
+        T may be a number (float back), a sequence (list back) or a numpy
+        array (array of T's shape back).
+
+        Raises:
+            MolqError: the species does not use the levels model (``EARG``),
+                or T is not finite and positive (``EDOMAIN``).
+        """
+        ptr = self._ptr
+        out = ctypes.c_double()
+
+        def one(t):
+            t = float(t)
+            status = _L.molq_eval_spin_conversion(ptr, t, ctypes.byref(out))
+            if status != 0:
+                model = self.model
+                if status == EARG and model != "levels":
+                    raise MolqError(status, "species %r uses model %r; the "
+                                    "spin conversion enthalpy needs model "
+                                    "'levels' (see with_model)"
+                                    % (self.name, model))
+                _fail(status, None, "species %r: spin conversion at T=%r K"
+                      % (self.name, t))
+            return out.value
+
+        if _is_scalar(T):
+            return one(T)
+        ndarray = _numpy_array_type()
+        if ndarray is not None and isinstance(T, ndarray):
+            np = sys.modules["numpy"]
+            tarr = np.asarray(T, dtype=np.float64)
+            res = np.empty(tarr.shape, dtype=np.float64)
+            flat = res.reshape(-1)
+            for i, t in enumerate(tarr.reshape(-1)):
+                flat[i] = one(t)
+            return res
+        if isinstance(T, (str, bytes, bytearray)):
+            raise TypeError("T must be a number or a sequence of numbers in "
+                            "K, not %s" % type(T).__name__)
+        return [one(t) for t in T]
+
     def modes(self, T, p=P_STANDARD):
         """Per-mode breakdown at one state (T in K, p in Pa).
 
         Returns a list with one dict per mode (translation, rotation,
-        vibration, electronic, as the species has them)::
+        vibration, electronic, as the species has them; translation and
+        rovibronic for the levels model)::
 
             {"kind": "rotation",
              "lnq": ln q of the mode (translation includes the kT/p volume),
@@ -564,6 +730,61 @@ def _as_int(value, field):
             from None
     # Out-of-range values are left for the library to reject by name.
     return max(-_INT_CLAMP, min(_INT_CLAMP, i))
+
+
+def _add_diatomic_state(spec, i, state, check):
+    """Append diatomic_states[i] (a dict with the species-file keys)."""
+    field = "diatomic_states[%d]" % i
+    if not isinstance(state, collections.abc.Mapping):
+        raise TypeError("%s must be a dict, not %s"
+                        % (field, type(state).__name__))
+    unknown = [k for k in state if k not in _STATE_KEYS]
+    if unknown:
+        raise ValueError("%s: unknown key %r (known: %s)"
+                         % (field, unknown[0], ", ".join(_STATE_KEYS)))
+    if "Te" not in state:
+        raise ValueError("%s: 'Te' missing (0 for the ground state)" % field)
+    label = state.get("label")
+    if label is not None and not isinstance(label, str):
+        raise TypeError("%s.label must be a str" % field)
+    named = [k for k in _NAMED_CONSTANTS if k in state]
+    if named and "dunham" in state:
+        raise ValueError("%s: give either 'dunham' or the named constants "
+                         "(%s), not both" % (field, ", ".join(named)))
+    index = ctypes.c_size_t()
+    check(_L.molq_spec_add_diatomic_state(
+        spec, float(state["Te"]),
+        _as_int(state.get("degeneracy", 1), field + ".degeneracy"),
+        ctypes.byref(index)), field)
+    idx = index.value
+    for key in named:
+        k, l, sign = _NAMED_CONSTANTS[key]
+        check(_L.molq_spec_set_dunham(spec, idx, k, l,
+                                      sign * float(state[key])),
+              "%s.%s" % (field, key))
+    if "dunham" in state:
+        rows = state["dunham"]
+        if _is_scalar(rows) or isinstance(rows, (str, bytes)) or \
+                len(rows) > _DUNHAM_ROWS:
+            raise ValueError("%s.dunham must be at most %d rows (powers of "
+                             "v + 1/2) of at most %d numbers (powers of "
+                             "J(J+1))" % (field, _DUNHAM_ROWS, _DUNHAM_COLS))
+        for k, row in enumerate(rows):
+            if _is_scalar(row) or isinstance(row, (str, bytes)) or \
+                    len(row) > _DUNHAM_COLS:
+                raise ValueError("%s.dunham[%d] must be a list of at most %d "
+                                 "numbers" % (field, k, _DUNHAM_COLS))
+            for l, y in enumerate(row):
+                check(_L.molq_spec_set_dunham(spec, idx, k, l, float(y)),
+                      "%s.dunham[%d][%d]" % (field, k, l))
+    if "rotational_weights" in state:
+        w = state["rotational_weights"]
+        if _is_scalar(w) or isinstance(w, (str, bytes)) or len(w) != 2:
+            raise ValueError("%s.rotational_weights must be [even-J weight, "
+                             "odd-J weight]" % field)
+        check(_L.molq_spec_set_rotational_weights(spec, idx, float(w[0]),
+                                                  float(w[1])),
+              field + ".rotational_weights")
 
 
 def _pairs(items, field):

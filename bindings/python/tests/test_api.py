@@ -54,12 +54,14 @@ class DatabaseSurface(unittest.TestCase):
         self.assertEqual(own.formula, "")
         self.assertEqual(own.t_min, 0.0)
         # An atom translates but neither rotates nor vibrates; a diatomic
-        # does all three.
+        # does all three, as separate modes under the rigid rotor /
+        # harmonic model and as one rovibronic level sum under "levels".
         self.assertIn("translation", own.mode_kinds)
         self.assertNotIn("rotation", own.mode_kinds)
         self.assertNotIn("vibration", own.mode_kinds)
         for kind in ("translation", "rotation", "vibration"):
-            self.assertIn(kind, db["N2"].mode_kinds)
+            self.assertIn(kind, db["N2"].with_model("rrho").mode_kinds)
+        self.assertEqual(db["N2"].mode_kinds, ["translation", "rovibronic"])
         self.assertIn("Qa", repr(own))
 
     def test_properties_and_units(self):

@@ -46,10 +46,18 @@ def significant_digits(text):
 
 @unittest.skipUnless(CLI, "MOLQ_CLI not set (command-line tool not built)")
 class CliAgreement(unittest.TestCase):
+    #: Species compared.
+    SPECIES = SPECIES
+    #: --model given to the CLI and Species.with_model in the binding
+    #: (None: each species' own model).
+    MODEL = None
+
     @classmethod
     def setUpClass(cls):
-        cmd = [CLI, "table"] + SPECIES + ["--format", "csv", "--T",
-                                          ",".join("%g" % t for t in TEMPS)]
+        cmd = [CLI, "table"] + cls.SPECIES + [
+            "--format", "csv", "--T", ",".join("%g" % t for t in TEMPS)]
+        if cls.MODEL is not None:
+            cmd += ["--model", cls.MODEL]
         proc = subprocess.run(cmd, stdout=subprocess.PIPE,
                               stderr=subprocess.PIPE, timeout=120,
                               universal_newlines=True)
@@ -60,11 +68,15 @@ class CliAgreement(unittest.TestCase):
         cls.rows = list(csv.reader(io.StringIO(proc.stdout)))
         cls.db = molq.Database.builtin()
 
+    def species(self, name):
+        sp = self.db[name]
+        return sp if self.MODEL is None else sp.with_model(self.MODEL)
+
     def test_header_and_rows(self):
         self.assertEqual(self.rows[0], HEADER)
         body = [r for r in self.rows[1:] if r]
         got = [(r[0], float(r[1])) for r in body]
-        want = [(s, t) for s in SPECIES for t in TEMPS]
+        want = [(s, t) for s in self.SPECIES for t in TEMPS]
         self.assertEqual(sorted(got), sorted(want))
 
     def test_printed_precision(self):
@@ -76,10 +88,11 @@ class CliAgreement(unittest.TestCase):
 
     def test_values_match_binding(self):
         body = [r for r in self.rows[1:] if r]
-        self.assertEqual(len(body), len(SPECIES) * len(TEMPS))
+        self.assertEqual(len(body), len(self.SPECIES) * len(TEMPS))
         checked = 0
         for row in body:
-            sp = self.db[row[0]]
+            sp = self.species(row[0])
+            self.assertEqual(sp.model, self.MODEL or self.db[row[0]].model)
             T = float(row[1])
             for prop, text in zip(HEADER[2:], row[2:]):
                 cli_value = float(text)
@@ -90,6 +103,39 @@ class CliAgreement(unittest.TestCase):
                     % (row[0], prop, T, value, text))
                 checked += 1
         self.assertEqual(checked, len(body) * (len(HEADER) - 2))
+
+
+class CliAgreementRrho(CliAgreement):
+    """Every species as rigid rotor / harmonic oscillator (--model rrho;
+    N2 switches model, H2O and CO2 already use it)."""
+    MODEL = "rrho"
+
+
+class CliAgreementLevels(CliAgreement):
+    """The built-in diatomics with the level sum, asked for explicitly."""
+    SPECIES = ["N2", "O2", "H2", "CO"]
+    MODEL = "levels"
+
+
+@unittest.skipUnless(CLI, "MOLQ_CLI not set (command-line tool not built)")
+class CliSpinAgreement(unittest.TestCase):
+    def test_spin_matches_binding(self):
+        temps = [15.0, 20.0, 77.0, 150.0]
+        cmd = [CLI, "spin", "H2", "N2", "--format", "csv", "--T",
+               ",".join("%g" % t for t in temps)]
+        proc = subprocess.run(cmd, stdout=subprocess.PIPE,
+                              stderr=subprocess.PIPE, timeout=120,
+                              universal_newlines=True)
+        self.assertEqual(proc.returncode, 0, proc.stderr)
+        rows = list(csv.reader(io.StringIO(proc.stdout)))
+        self.assertEqual(rows[0], ["species", "T", "h_frozen_minus_h_eq"])
+        db = molq.Database.builtin()
+        self.assertEqual(len(rows) - 1, 2 * len(temps))
+        for name, T, text in rows[1:]:
+            value = db[name].spin_conversion(float(T))
+            self.assertLessEqual(abs(value - float(text)),
+                                 tolerance(text, value) + 1e-12,
+                                 "%s at %s K" % (name, T))
 
 
 if __name__ == "__main__":
