@@ -88,7 +88,7 @@ molq_status molq_property_from_name(const char *name, molq_property *out)
 
 static const char *const mode_names[] = {"translation", "rotation",
                                          "vibration", "electronic",
-                                         "rovibronic"};
+                                         "rovibronic", "torsion"};
 
 const char *molq_mode_kind_name(molq_mode_kind kind)
 {

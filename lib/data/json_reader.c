@@ -15,11 +15,16 @@
  * default 1), rotational_weights ([even, odd]), and the term values either
  * as named constants we, wexe, weye, weze, Be, alpha_e, gamma_e, De,
  * beta_e, He (cm^-1) or as "dunham": [[Y00, Y01, ...], [Y10, Y11, ...], ...]
- * (row k = power of v + 1/2, column l = power of J(J+1)). */
+ * (row k = power of v + 1/2, column l = power of J(J+1)).
+ * torsions (array of TORSION), TORSION keys: rotational_constant (F,
+ * cm^-1) or reduced_moment (amu A^2), symmetry_number (integer, default 1),
+ * barrier (array of {"n": integer, "V": cm^-1}), replaces_vibration
+ * (index into vibrations). */
 #include <jansson.h>
 #include <stdlib.h>
 #include <string.h>
 
+#include "core/constants.h"
 #include "core/errbuf.h"
 #include "data/json_reader.h"
 
@@ -135,7 +140,102 @@ static const char *const entry_keys[] = {
     "name", "formula", "molar_mass", "structure", "symmetry_number",
     "rotational_constants", "rotor", "vibrations", "electronic_levels",
     "formation_enthalpy_298", "source", "model", "dissociation_energy",
-    "spin_isomers", "odd_fraction", "diatomic_states", NULL};
+    "spin_isomers", "odd_fraction", "diatomic_states", "torsions", NULL};
+
+static const char *const torsion_keys[] = {
+    "rotational_constant", "reduced_moment", "symmetry_number", "barrier",
+    "replaces_vibration", NULL};
+
+/* F = h / (8 pi^2 c I) in cm^-1 from I in amu A^2. */
+static double rotor_constant(double amu_a2)
+{
+    double inertia = amu_a2 * MOLQ_M_U * 1e-20; /* kg m^2 */
+    return MOLQ_H_PLANCK /
+           (8.0 * MOLQ_PI * MOLQ_PI * 100.0 * MOLQ_C_LIGHT * inertia);
+}
+
+static molq_status read_torsion(ctx *c, molq_spec *s, json_t *e, size_t i)
+{
+    char name[96], where[48];
+    json_t *v, *f, *im, *item;
+    molq_status st;
+    double x;
+    int sigma = 1, rep = -1;
+    size_t idx, k;
+    snprintf(where, sizeof where, "torsions[%zu].", i);
+    if (!json_is_object(e))
+        return key_error(c, MOLQ_ETYPE, "torsions", "expected an array of "
+                         "objects");
+    if ((st = check_keys(c, e, torsion_keys, where)) != MOLQ_OK)
+        return st;
+    f = json_object_get(e, "rotational_constant");
+    im = json_object_get(e, "reduced_moment");
+    snprintf(name, sizeof name, "%srotational_constant", where);
+    if (f == NULL && im == NULL)
+        return key_error(c, MOLQ_EKEY, name, "missing: a torsion (and any "
+                         "barrier) needs its rotor, as 'rotational_constant' "
+                         "(cm^-1) or 'reduced_moment' (amu A^2)");
+    if (f != NULL && im != NULL)
+        return key_error(c, MOLQ_EKEY, name, "give either "
+                         "'rotational_constant' or 'reduced_moment', not both");
+    if (f != NULL) {
+        if ((st = get_number(c, f, name, &x)) != MOLQ_OK)
+            return st;
+    } else {
+        snprintf(name, sizeof name, "%sreduced_moment", where);
+        if ((st = get_number(c, im, name, &x)) != MOLQ_OK)
+            return st;
+        if (!(x > 0.0))
+            return key_error(c, MOLQ_EVALUE, name, "must be > 0 amu A^2");
+        x = rotor_constant(x);
+    }
+    snprintf(name, sizeof name, "%ssymmetry_number", where);
+    if ((v = json_object_get(e, "symmetry_number")) != NULL &&
+        (st = get_int(c, v, name, &sigma)) != MOLQ_OK)
+        return st;
+    snprintf(name, sizeof name, "%sreplaces_vibration", where);
+    if ((v = json_object_get(e, "replaces_vibration")) != NULL &&
+        (st = get_int(c, v, name, &rep)) != MOLQ_OK)
+        return st;
+    if (v != NULL && rep < 0)
+        return key_error(c, MOLQ_EVALUE, name, "must be an index >= 0");
+    if ((st = molq_spec_add_torsion(s, x, sigma, rep, &idx)) != MOLQ_OK)
+        return st == MOLQ_ELIMIT
+                   ? key_error(c, st, "torsions", "at most 8 torsions")
+                   : st;
+    if ((v = json_object_get(e, "barrier")) == NULL)
+        return MOLQ_OK;
+    snprintf(name, sizeof name, "%sbarrier", where);
+    if (!json_is_array(v))
+        return key_error(c, MOLQ_ETYPE, name, "expected an array of "
+                         "{\"n\": integer, \"V\": cm^-1}");
+    json_array_foreach(v, k, item) {
+        static const char *const term_keys[] = {"n", "V", NULL};
+        json_t *jn, *jv;
+        int n;
+        char tw[128];
+        snprintf(tw, sizeof tw, "%sbarrier[%zu].", where, k);
+        if (!json_is_object(item))
+            return key_error(c, MOLQ_ETYPE, name, "expected an array of "
+                             "objects");
+        if ((st = check_keys(c, item, term_keys, tw)) != MOLQ_OK)
+            return st;
+        jn = json_object_get(item, "n");
+        jv = json_object_get(item, "V");
+        snprintf(name, sizeof name, "%sbarrier[%zu].%s", where, k,
+                 jn == NULL ? "n" : "V");
+        if (jn == NULL || jv == NULL)
+            return key_error(c, MOLQ_EKEY, name, "missing");
+        if ((st = get_int(c, jn, name, &n)) != MOLQ_OK ||
+            (st = get_number(c, jv, name, &x)) != MOLQ_OK)
+            return st;
+        if ((st = molq_spec_add_torsion_term(s, idx, n, x)) != MOLQ_OK)
+            return st == MOLQ_ELIMIT
+                       ? key_error(c, st, name, "at most 8 terms")
+                       : st;
+    }
+    return MOLQ_OK;
+}
 
 /* Named spectroscopic constants: key, Dunham indices, sign. */
 static const struct {
@@ -288,6 +388,15 @@ static molq_status read_levels_model(ctx *c, json_t *e, molq_spec *s)
     if (json_object_get(e, "odd_fraction") != NULL && !s->spin_frozen)
         return key_error(c, MOLQ_EKEY, "odd_fraction", "only meaningful with "
                          "\"spin_isomers\": \"frozen\"");
+    if ((v = json_object_get(e, "torsions")) != NULL) {
+        if (!json_is_array(v))
+            return key_error(c, MOLQ_ETYPE, "torsions",
+                             "expected an array of objects");
+        json_array_foreach(v, i, item) {
+            if ((st = read_torsion(c, s, item, i)) != MOLQ_OK)
+                return st;
+        }
+    }
     if ((v = json_object_get(e, "diatomic_states")) != NULL) {
         if (!json_is_array(v))
             return key_error(c, MOLQ_ETYPE, "diatomic_states",

@@ -38,6 +38,7 @@ void molq_spec_free(molq_spec *s)
     free(s->el_e);
     free(s->el_g);
     free(s->states);
+    free(s->torsions);
     free(s);
 }
 
@@ -66,6 +67,7 @@ molq_spec *molq_spec_clone(const molq_spec *s)
     c->el_e = NULL;
     c->el_g = NULL;
     c->states = NULL;
+    c->torsions = NULL;
     c->cap_vib = c->nvib;
     c->cap_el = c->nel;
     ok = (c->name = molq_strdup(s->name)) != NULL &&
@@ -76,7 +78,9 @@ molq_spec *molq_spec_clone(const molq_spec *s)
          copy_array((void **)&c->el_e, s->el_e, s->nel * sizeof(double)) &&
          copy_array((void **)&c->el_g, s->el_g, s->nel * sizeof(int)) &&
          copy_array((void **)&c->states, s->states,
-                    s->nstates * sizeof(molq_spec_state));
+                    s->nstates * sizeof(molq_spec_state)) &&
+         copy_array((void **)&c->torsions, s->torsions,
+                    s->ntorsions * sizeof(molq_spec_torsion));
     if (!ok) {
         molq_spec_free(c);
         return NULL;
@@ -101,7 +105,8 @@ molq_model molq_spec_default_model(const molq_spec *s)
 {
     if (s->has_model)
         return (molq_model)s->model;
-    return s->nstates > 0 ? MOLQ_MODEL_LEVELS : MOLQ_MODEL_RRHO;
+    return (s->nstates > 0 || s->ntorsions > 0) ? MOLQ_MODEL_LEVELS
+                                                : MOLQ_MODEL_RRHO;
 }
 
 molq_status molq_spec_set_model(molq_spec *s, molq_model model)
@@ -291,4 +296,41 @@ molq_status molq_spec_add_electronic_level(molq_spec *s, double energy_cm1,
         return MOLQ_EARG;
     return append_pair(&s->el_e, &s->el_g, &s->nel, &s->cap_el,
                        MOLQ_MAX_LEVELS, energy_cm1, degeneracy);
+}
+
+molq_status molq_spec_add_torsion(molq_spec *s, double f_cm1, int sigma,
+                                  int replaces_vibration, size_t *index)
+{
+    molq_spec_torsion *nt;
+    if (s == NULL)
+        return MOLQ_EARG;
+    if (s->ntorsions >= MOLQ_MAX_TORSIONS)
+        return MOLQ_ELIMIT;
+    nt = realloc(s->torsions, (s->ntorsions + 1) * sizeof *nt);
+    if (nt == NULL)
+        return MOLQ_ENOMEM;
+    s->torsions = nt;
+    memset(&nt[s->ntorsions], 0, sizeof *nt);
+    nt[s->ntorsions].f = f_cm1;
+    nt[s->ntorsions].sigma = sigma;
+    nt[s->ntorsions].replaces = replaces_vibration;
+    if (index != NULL)
+        *index = s->ntorsions;
+    s->ntorsions++;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_add_torsion_term(molq_spec *s, size_t torsion, int n,
+                                       double v_cm1)
+{
+    molq_spec_torsion *t;
+    if (s == NULL || torsion >= s->ntorsions)
+        return MOLQ_EARG;
+    t = &s->torsions[torsion];
+    if (t->nterms >= MOLQ_MAX_TORSION_TERMS)
+        return MOLQ_ELIMIT;
+    t->terms[t->nterms].n = n;
+    t->terms[t->nterms].v = v_cm1;
+    t->nterms++;
+    return MOLQ_OK;
 }

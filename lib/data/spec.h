@@ -17,6 +17,8 @@
 #define MOLQ_MAX_FILE_BYTES (64u * 1024u * 1024u)
 #define MOLQ_MAX_STATES 32
 #define MOLQ_MAX_ROVIB_LEVELS 400000 /* bound levels of one diatomic */
+#define MOLQ_MAX_TORSIONS 8
+#define MOLQ_MAX_TORSION_TERMS 8
 
 /* One electronic state of a diatomic with its own term values. */
 typedef struct molq_spec_state {
@@ -26,6 +28,15 @@ typedef struct molq_spec_state {
     double w_even, w_odd; /* weights of even / odd rotational levels */
     int has_weights;
 } molq_spec_state;
+
+/* One hindered internal rotor. */
+typedef struct molq_spec_torsion {
+    double f;   /* internal-rotation constant, cm^-1 */
+    int sigma;  /* internal symmetry number */
+    int replaces; /* index of the harmonic vibration it replaces, or -1 */
+    molq_torsion_term terms[MOLQ_MAX_TORSION_TERMS];
+    size_t nterms;
+} molq_spec_torsion;
 
 struct molq_spec_s {
     char *name;
@@ -52,6 +63,8 @@ struct molq_spec_s {
     size_t nstates;
     double d0; /* dissociation energy from the ground level, cm^-1 */
     int has_d0;
+    molq_spec_torsion *torsions;
+    size_t ntorsions;
     int spin_frozen;     /* 1: frozen even/odd mixture, 0: equilibrium */
     double odd_fraction; /* frozen: mole fraction in odd-J levels */
 };

@@ -90,6 +90,62 @@ static molq_status validate_states(const molq_spec *s, char *err,
     return MOLQ_OK;
 }
 
+static molq_status validate_torsions(const molq_spec *s, char *err,
+                                     size_t errlen)
+{
+    const char *nm = s->name;
+    size_t i, j, k;
+    if (s->structure != MOLQ_NONLINEAR)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'torsions': an internal rotor "
+             "needs a nonlinear molecule", nm);
+    for (i = 0; i < s->ntorsions; i++) {
+        const molq_spec_torsion *t = &s->torsions[i];
+        if (!isfinite(t->f) || t->f <= 0.0)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                 "rotational_constant': must be a finite number > 0 cm^-1 "
+                 "(got %g)", nm, i, t->f);
+        if (t->f < 1e-3)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                 "rotational_constant': %g cm^-1 is below the supported 1e-3 "
+                 "cm^-1 (a rotor that heavy is classical: use a harmonic "
+                 "vibration or a free-rotor limit)", nm, i, t->f);
+        if (t->sigma < 1)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                 "symmetry_number': must be an integer >= 1 (got %d)", nm, i,
+                 t->sigma);
+        {
+            double vsum = 0.0;
+            for (k = 0; k < t->nterms; k++)
+                vsum += fabs(t->terms[k].v);
+            if (vsum / t->f > 4000.0)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                     "barrier': barrier / rotational constant = %g exceeds "
+                     "4000, beyond the supported free-rotor basis; such a "
+                     "torsion is a harmonic vibration", nm, i, vsum / t->f);
+        }
+        for (k = 0; k < t->nterms; k++) {
+            if (t->terms[k].n < 1 || t->terms[k].n > 12)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                     "barrier[%zu].n': must be an integer from 1 to 12 (got "
+                     "%d)", nm, i, k, t->terms[k].n);
+            if (!isfinite(t->terms[k].v) || fabs(t->terms[k].v) > 1e6)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                     "barrier[%zu].V': must be a finite number of at most "
+                     "1e6 cm^-1 in size (got %g)", nm, i, k, t->terms[k].v);
+        }
+        if (t->replaces < -1 || t->replaces >= (int)s->nvib)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                 "replaces_vibration': must index one of the %zu vibrations "
+                 "(got %d)", nm, i, s->nvib, t->replaces);
+        for (j = 0; j < i; j++)
+            if (t->replaces >= 0 && s->torsions[j].replaces == t->replaces)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
+                     "replaces_vibration': vibration %d is already replaced "
+                     "by torsions[%zu]", nm, i, t->replaces, j);
+    }
+    return MOLQ_OK;
+}
+
 molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
                                char *err, size_t errlen)
 {
@@ -135,10 +191,13 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
     if (s->model != MOLQ_MODEL_RRHO && s->model != MOLQ_MODEL_LEVELS)
         FAIL(MOLQ_EVALUE, "species '%s': field 'model': must be rrho or levels "
              "(got code %d)", nm, s->model);
-    if (molq_spec_default_model(s) == MOLQ_MODEL_LEVELS && s->nstates == 0)
+    if (s->ntorsions > 0 && (rc = validate_torsions(s, err, errlen)) != MOLQ_OK)
+        return rc;
+    if (molq_spec_default_model(s) == MOLQ_MODEL_LEVELS && s->nstates == 0 &&
+        s->ntorsions == 0)
         FAIL(MOLQ_EKEY, "species '%s': field 'diatomic_states': missing; the "
-             "levels model needs the term values of at least the ground "
-             "state", nm);
+             "levels model needs level data: 'diatomic_states' for a "
+             "diatomic, 'torsions' for a polyatomic", nm);
 
     /* Rotational constants may be left out when a diatomic's states give
      * them (the RRHO variant derives B0 from the ground state). */

@@ -56,6 +56,18 @@ typedef struct molq_rovib_params {
     molq_lnq_table table;   /* interpolation of the exact sum */
 } molq_rovib_params;
 
+/* One term (V_n / 2)(1 - cos n phi) of a torsional potential, V in cm^-1. */
+typedef struct molq_torsion_term {
+    int n;
+    double v;
+} molq_torsion_term;
+
+typedef struct molq_torsion_params {
+    size_t n;
+    double *theta, *w;    /* sorted levels (K) and weights 1/sigma_int */
+    molq_lnq_table table;
+} molq_torsion_params;
+
 typedef struct molq_levels_params {
     size_t n;
     const double *theta; /* level energies / k, K */
@@ -70,6 +82,7 @@ struct molq_mode {
         molq_rotation_params rot;
         molq_levels_params lev; /* vibration (harmonic) and electronic */
         molq_rovib_params rv;
+        molq_torsion_params tor;
     } u;
     void *owned, *owned2; /* memory the mode allocated at init, freed
                              with it */
@@ -108,6 +121,12 @@ size_t molq_rovib_count(const molq_rovib_state *st, size_t n, double d0,
  * even/odd mixture.  Returns 0, or -1 on allocation failure. */
 int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
                               size_t n, double d0, int frozen, double x_odd);
+
+/* Hindered internal rotor with constant F (cm^-1), potential terms and
+ * internal symmetry number.  Returns 0, or -1 on allocation failure. */
+int molq_mode_torsion_init(molq_mode *m, double F,
+                           const molq_torsion_term *terms, size_t nt,
+                           int sigma);
 
 /* k1(frozen) - k1(equilibrium) at T: the spin-isomer conversion energy in
  * units of kT (frozen mixture: the mode's own, or the high-T one). */

@@ -43,13 +43,28 @@ typedef struct rrho_inputs {
     size_t nvib, nel;
 } rrho_inputs;
 
-static void rrho_inputs_of(const molq_spec *spec, rrho_inputs *r)
+/* Is vibration i replaced by a torsion (when torsions are in use)? */
+static int replaced(const molq_spec *spec, size_t i, int torsions)
+{
+    size_t k;
+    if (!torsions)
+        return 0;
+    for (k = 0; k < spec->ntorsions; k++)
+        if (spec->torsions[k].replaces == (int)i)
+            return 1;
+    return 0;
+}
+
+static void rrho_inputs_of(const molq_spec *spec, int torsions,
+                           rrho_inputs *r)
 {
     size_t i;
     r->nrot = spec->nrot;
     for (i = 0; i < spec->nrot; i++)
         r->rot[i] = spec->rot[i];
-    r->nvib = spec->nvib;
+    r->nvib = 0;
+    for (i = 0; i < spec->nvib; i++)
+        r->nvib += !replaced(spec, i, torsions);
     r->nel = spec->nel > 0 ? spec->nel : 1;
     if (spec->nstates > 0 && spec->nrot == 0) {
         r->rot[0] = b_v(&spec->states[0], 0.5);
@@ -62,14 +77,17 @@ static void rrho_inputs_of(const molq_spec *spec, rrho_inputs *r)
 }
 
 static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
-                             double *vt, double *vg, double *et, double *eg)
+                             int torsions, double *vt, double *vg, double *et,
+                             double *eg)
 {
-    size_t i;
+    size_t i, k = 0;
     const molq_spec_state *x = spec->states;
     if (spec->nvib > 0) {
         for (i = 0; i < spec->nvib; i++) {
-            vt[i] = MOLQ_C2_CM_K * spec->vib_wn[i];
-            vg[i] = (double)spec->vib_deg[i];
+            if (replaced(spec, i, torsions))
+                continue;
+            vt[k] = MOLQ_C2_CM_K * spec->vib_wn[i];
+            vg[k++] = (double)spec->vib_deg[i];
         }
     } else if (r->nvib == 1) {
         vt[0] = MOLQ_C2_CM_K * (vib_term(x, 1.5) - vib_term(x, 0.5));
@@ -94,12 +112,15 @@ static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
     }
 }
 
+/* Rigid rotor, harmonic vibrations and electronic levels; with `torsions`
+ * the hindered rotors replace the vibrations they name. */
 static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
-                              char *err, size_t errlen)
+                              int torsions, char *err, size_t errlen)
 {
     rrho_inputs r;
     double *vt, *vg, *et, *eg;
-    rrho_inputs_of(spec, &r);
+    size_t k;
+    rrho_inputs_of(spec, torsions, &r);
     if (spec->structure != MOLQ_ATOM && r.nrot == 0) {
         molq_errf(err, errlen, "species '%s': field 'rotational_constants': "
                   "missing, needed by the rrho model", spec->name);
@@ -112,7 +133,7 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     vg = vt + r.nvib;
     et = vg + r.nvib;
     eg = et + r.nel;
-    fill_rrho_arrays(spec, &r, vt, vg, et, eg);
+    fill_rrho_arrays(spec, &r, torsions, vt, vg, et, eg);
     if (spec->structure != MOLQ_ATOM)
         molq_mode_rotation_init(&sp->modes[sp->nmodes++],
                                 spec->structure == MOLQ_LINEAR,
@@ -121,6 +142,13 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     if (r.nvib > 0)
         molq_mode_vibration_init(&sp->modes[sp->nmodes++], r.nvib, vt, vg);
     molq_mode_electronic_init(&sp->modes[sp->nmodes++], r.nel, et, eg);
+    for (k = 0; torsions && k < spec->ntorsions; k++) {
+        const molq_spec_torsion *t = &spec->torsions[k];
+        if (molq_mode_torsion_init(&sp->modes[sp->nmodes], t->f, t->terms,
+                                   t->nterms, t->sigma) != 0)
+            return MOLQ_ENOMEM;
+        sp->nmodes++;
+    }
     return MOLQ_OK;
 }
 
@@ -128,9 +156,12 @@ static molq_status build_levels(molq_species *sp, const molq_spec *spec,
                                 char *err, size_t errlen)
 {
     molq_rovib_state st[MOLQ_MAX_STATES];
+    if (spec->nstates == 0 && spec->ntorsions > 0)
+        return build_rrho(sp, spec, 1, err, errlen);
     if (spec->nstates == 0) {
         molq_errf(err, errlen, "species '%s': field 'diatomic_states': "
-                  "missing, needed by the levels model", spec->name);
+                  "missing, needed by the levels model (or 'torsions' for a "
+                  "polyatomic)", spec->name);
         return MOLQ_EVALUE;
     }
     molq_spec_rovib_states(spec, st);
@@ -168,7 +199,7 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
 
     molq_mode_translation_init(&sp->modes[sp->nmodes++], molar_mass);
     st = model == MOLQ_MODEL_LEVELS ? build_levels(sp, spec, err, errlen)
-                                    : build_rrho(sp, spec, err, errlen);
+                                    : build_rrho(sp, spec, 0, err, errlen);
     if (st != MOLQ_OK) {
         if (st == MOLQ_ENOMEM)
             molq_errf(err, errlen, "species '%s': out of memory", spec->name);

@@ -7,7 +7,7 @@
 #include "data/spec.h"
 #include "modes/modes.h"
 
-#define MOLQ_MAX_MODES 4
+#define MOLQ_MAX_MODES (4 + MOLQ_MAX_TORSIONS)
 
 struct molq_species_s {
     char *name;
