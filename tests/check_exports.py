@@ -10,8 +10,9 @@ lib, mapfile, header = sys.argv[1:4]
 text = open(mapfile).read()
 text = re.sub(r"/\*.*?\*/", "", text, flags=re.S)
 listed = set()
-for block in re.findall(r"global:(.*?)local:", text, flags=re.S):
-    listed.update(s.strip() for s in block.split(";") if s.strip())
+for body in re.findall(r"\{(.*?)\}", text, flags=re.S):
+    body = body.split("local:")[0].replace("global:", "")
+    listed.update(s.strip() for s in body.split(";") if s.strip())
 
 out = subprocess.run(["nm", "-D", "--defined-only", lib], check=True,
                      capture_output=True, text=True).stdout

@@ -12,7 +12,7 @@ set -eu
 
 cd "$(dirname "$0")/.."
 
-PACKAGES="gcc meson ninja-build pkg-config libgsl-dev check libjansson-dev python3 valgrind"
+PACKAGES="gcc meson ninja-build pkg-config libgsl-dev check libjansson-dev python3 valgrind abigail-tools"
 
 setup() {
     missing=""
@@ -51,6 +51,8 @@ test)
     setup
     build build
     meson test -C build --print-errorlogs
+    # The ABI may only grow: compare the built library with abi/libmolq.abi.
+    abi/check.sh build
     # Sanitisers: the suites that load the library into an uninstrumented
     # host (Python via ctypes) or run it under valgrind are skipped here;
     # they run in the plain build above.
