@@ -140,10 +140,22 @@ static int parse_range(const char *opt, const char *text, double **out,
         snprintf(msg, msglen, "option %s: out of memory", opt);
         return -1;
     }
-    for (i = 0; i < count; i++)
+    for (i = 0; i < count; i++) {
         T[i] = v[0] + (double)i * v[2];
-    if (fabs(T[count - 1] - v[1]) <= 1e-9 * v[2])
-        T[count - 1] = v[1]; /* print STOP as given, not with round-off */
+        if (i > 0 && !(T[i] > T[i - 1])) {
+            /* STEP below the spacing of doubles near START. */
+            snprintf(msg, msglen, "option %s: STEP of range '%.*s' is too "
+                     "small to advance from START in double precision", opt,
+                     QUOTE_MAX, text);
+            free(T);
+            return -1;
+        }
+    }
+    /* Print STOP as given, not with round-off, when the last step lands on
+     * it (never when no step was taken: a STEP far larger than the range
+     * must leave START alone). */
+    if (count > 1 && fabs(T[count - 1] - v[1]) <= 1e-9 * v[2])
+        T[count - 1] = v[1];
     *out = T;
     *n = count;
     return 0;

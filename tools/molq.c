@@ -40,7 +40,7 @@ static const struct {
     {MOLQ_MODEL_RRHO, "rrho",
      "rigid rotor, harmonic vibrations, electronic level list (fast)"},
     {MOLQ_MODEL_LEVELS, "levels",
-     "diatomics: sum over bound ro-vibrational levels (anharmonic, spin)"},
+     "sums over levels: diatomic ro-vibrational, hindered rotors"},
 };
 #define N_MODELS (sizeof model_table / sizeof model_table[0])
 
@@ -73,15 +73,16 @@ static const char help_head[] =
     "          at each temperature, by statistical mechanics with the\n"
     "          species' model (see Models).\n"
     "  modes   the contribution of each mode (translation, rotation,\n"
-    "          vibration, electronic; rovibronic for the levels model) to\n"
-    "          ln q, u, cv and s, with the totals.\n"
+    "          vibration, electronic; rovibronic and torsion for the levels\n"
+    "          model) to ln q, u, cv and s, with the totals.\n"
     "  spin    ortho-para (even/odd-J) conversion enthalpy\n"
     "          h_frozen - h_equilibrium, J/mol: the heat released when the\n"
     "          frozen mixture (the species' own, or else its high-temperature\n"
     "          even/odd ratio, e.g. normal hydrogen) relaxes to spin\n"
-    "          equilibrium at T.  Levels model only; zero (to round-off)\n"
-    "          when even and odd levels weigh the same.  Default TEMPS:\n"
-    "          20,30,40,50,77,100,150,200,298.15\n"
+    "          equilibrium at T.  Diatomics with the levels model; zero\n"
+    "          (to round-off) when even and odd levels weigh the same.\n"
+    "          Default TEMPS:"
+    " 20,30,40,50,77,100,150,200,298.15\n"
     "  list    the species available: name, formula, structure, model,\n"
     "          molar mass, whether a formation enthalpy is given, and the\n"
     "          data source.\n"
@@ -950,6 +951,18 @@ static molq_status spin_value(const molq_species *sp, double T, int per_mass,
     return st;
 }
 
+/* 1 if the species has a diatomic level sum (a rovibronic mode). */
+static int has_rovibronic(const molq_species *sp)
+{
+    size_t m, n = molq_species_mode_count(sp);
+    molq_mode_kind kind;
+    for (m = 0; m < n; m++)
+        if (molq_species_mode_kind(sp, m, &kind) == MOLQ_OK &&
+            kind == MOLQ_MODE_ROVIBRONIC)
+            return 1;
+    return 0;
+}
+
 static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
 {
     size_t i, t;
@@ -965,6 +978,12 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
                     "a species that has them)\n",
                     molq_species_name(sp[i]),
                     model_name(molq_species_model(sp[i])));
+            return EXIT_DATA;
+        }
+        if (!has_rovibronic(sp[i])) {
+            fprintf(stderr, "molq: species '%s' has no diatomic level sum "
+                    "(no diatomic_states); spin isomers are modelled for "
+                    "diatomics only\n", molq_species_name(sp[i]));
             return EXIT_DATA;
         }
         if ((st = spin_value(sp[i], Tmin, o->per_mass, &v)) != MOLQ_OK) {

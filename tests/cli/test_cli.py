@@ -50,7 +50,7 @@ CSV_HEADER = "species,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
 CSV_HEADER_COMPARE = "species,model,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
 MODELS = ["rrho", "levels"]
 DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
-BUILTIN = ["Ar", "O", "H2", "N2", "O2", "CO", "CO2", "H2O"]
+BUILTIN = ["Ar", "O", "H2", "N2", "O2", "CO", "CO2", "H2O", "C2H6"]
 CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
            "design of pressure equipment, burners or safety systems without "
            "verification under the applicable codes and licensed engineering "
@@ -359,6 +359,11 @@ class CsvFormat(unittest.TestCase):
         _, rows = parse_csv(out)
         self.assertEqual(len(rows), 4)
         self.assertAlmostEqual(rows[-1]["T"], 1.9, places=12)
+        # STEP larger than the whole range: START alone (not STOP).
+        out = run_ok(self, "table", "Ar", "--T", "300:1000:1e13", "--format",
+                     "csv")
+        _, rows = parse_csv(out)
+        self.assertEqual([r["T"] for r in rows], [300.0])
         # START == STOP: one point.
         out = run_ok(self, "table", "Ar", "--T", "500:500:10", "--format",
                      "csv")
@@ -618,6 +623,9 @@ BAD_ARGS = [
     (["table", "N2", "--T", "300:400"], 2, ["--T", "START:STOP:STEP"]),
     (["table", "N2", "--T", "300:x:10"], 2, ["--T", "STOP", "'x'"]),
     (["table", "N2", "--T", "1:2000000:1"], 2, ["--T", "1000000 points"]),
+    # A STEP below the spacing of doubles at START would repeat START.
+    (["table", "N2", "--T", "1e16:1.0000000000000002e16:0.5"], 2,
+     ["--T", "STEP", "too small"]),
     (["table", "N2", "--T"], 2, ["--T", "needs a value"]),
     (["table", "N2", "--T", "300", "--T", "400"], 2, ["--T", "more than once"]),
     (["table", "N2", "--p", "0"], 2, ["--p", "'0'", "greater than 0"]),
@@ -677,6 +685,8 @@ BAD_ARGS = [
      ["'CO2'", "model 'levels'", "diatomic_states"]),
     (["modes", "H2O", "--model", "levels"], 1, ["'H2O'", "diatomic_states"]),
     (["spin", "CO2"], 1, ["'CO2'", "model 'rrho'", "levels"]),
+    # Levels model without a diatomic level sum (hindered rotor).
+    (["spin", "C2H6"], 1, ["'C2H6'", "diatomic"]),
     (["spin", "H2", "--model", "rrho"], 1, ["'H2'", "model 'rrho'"]),
 ]
 
@@ -913,7 +923,7 @@ class BuiltinFormats(unittest.TestCase):
         self.assertEqual({n: info[n]["model"] for n in BUILTIN},
                          {"Ar": "rrho", "O": "rrho", "H2": "levels",
                           "N2": "levels", "O2": "levels", "CO": "levels",
-                          "CO2": "rrho", "H2O": "rrho"})
+                          "CO2": "rrho", "H2O": "rrho", "C2H6": "levels"})
         text = run_ok(self, "list")
         self.assertEqual(text.splitlines()[0].split()[:4],
                          ["name", "formula", "structure", "model"])

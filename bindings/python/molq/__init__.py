@@ -24,8 +24,9 @@ Main objects
     ``dissociation_energy=``, ``model=``).
 ``sp.model``, ``sp.with_model("rrho")``, ``molq.model_names()``
     the model a species uses ("rrho": rigid rotor, harmonic vibrations,
-    electronic level list; "levels": sum over the bound ro-vibrational
-    levels of a diatomic) and a copy of it with another model.
+    electronic level list; "levels": explicit level sums, for the bound
+    ro-vibrational levels of a diatomic and for hindered internal rotors)
+    and a copy of it with another model.
 ``sp.spin_conversion(T)``
     ortho-para conversion enthalpy h_frozen - h_equilibrium, J/mol
     (levels model).

@@ -54,7 +54,7 @@ _INT_CLAMP = 1000000000
 # model needs one entry here and nothing else in the binding.
 _MODELS = {
     "rrho": 0,    # rigid rotor, harmonic vibrations, electronic level list
-    "levels": 1,  # diatomics: sum over bound ro-vibrational levels
+    "levels": 1,  # level sums: diatomic ro-vibrational levels, torsions
 }
 _MODEL_BY_ID = {v: k for k, v in _MODELS.items()}
 
@@ -167,8 +167,9 @@ def _prop_id(name):
 def model_names():
     """Names of the models this binding knows, in the library's order
     (``["rrho", "levels"]``): ``"rrho"`` rigid rotor, harmonic vibrations
-    and an electronic level list; ``"levels"`` (diatomics) explicit sum over
-    the bound ro-vibrational levels of each electronic state."""
+    and an electronic level list; ``"levels"`` explicit level sums: the
+    bound ro-vibrational levels of each electronic state of a diatomic,
+    hindered internal rotors of a polyatomic."""
     return list(_MODELS)
 
 
@@ -643,14 +644,14 @@ class Species:
         at temperature(s) T in K: the heat released per mole when the
         frozen even/odd-J mixture (the species' own, or else the ground
         state's high-temperature ratio, e.g. normal hydrogen) relaxes to
-        spin equilibrium at T.  Levels model only.
+        spin equilibrium at T.  Diatomics with the levels model only.
 
         T may be a number (float back), a sequence (list back) or a numpy
         array (array of T's shape back).
 
         Raises:
-            MolqError: the species does not use the levels model (``EARG``),
-                or T is not finite and positive (``EDOMAIN``).
+            MolqError: the species is not a diatomic with the levels model
+                (``EARG``), or T is not finite and positive (``EDOMAIN``).
         """
         ptr = self._ptr
         out = ctypes.c_double()
@@ -665,6 +666,11 @@ class Species:
                                     "spin conversion enthalpy needs model "
                                     "'levels' (see with_model)"
                                     % (self.name, model))
+                if status == EARG and "rovibronic" not in self.mode_kinds:
+                    raise MolqError(status, "species %r has no diatomic "
+                                    "level sum (no diatomic_states); spin "
+                                    "isomers are modelled for diatomics only"
+                                    % (self.name,))
                 _fail(status, None, "species %r: spin conversion at T=%r K"
                       % (self.name, t))
             return out.value

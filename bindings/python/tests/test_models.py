@@ -86,10 +86,11 @@ class ModelNames(unittest.TestCase):
 
     def test_builtin_models(self):
         db = molq.Database.builtin()
-        self.assertEqual({sp.name: sp.model for sp in db},
-                         {"Ar": "rrho", "O": "rrho", "H2": "levels",
-                          "N2": "levels", "O2": "levels", "CO": "levels",
-                          "CO2": "rrho", "H2O": "rrho"})
+        want = {"Ar": "rrho", "O": "rrho", "H2": "levels", "N2": "levels",
+                "O2": "levels", "CO": "levels", "CO2": "rrho", "H2O": "rrho"}
+        self.assertEqual({n: db[n].model for n in want}, want)
+        for sp in db:
+            self.assertIn(sp.model, molq.model_names())
         self.assertIn("model=levels", repr(db["N2"]))
         own = molq.Species.from_constants("Qa", structure="atom",
                                           molar_mass=4.0)
@@ -346,6 +347,13 @@ class SpinConversion(unittest.TestCase):
             self.assertEqual(cm.exception.status, molq.EARG)
             self.assertIn("levels", cm.exception.message)
             self.assertIn(sp.name, cm.exception.message)
+        # A level-based polyatomic (hindered rotor) has no even/odd-J
+        # level sum.
+        if "C2H6" in db:
+            with self.assertRaises(molq.MolqError) as cm:
+                db["C2H6"].spin_conversion(20.0)
+            self.assertEqual(cm.exception.status, molq.EARG)
+            self.assertIn("diatomic", cm.exception.message)
         for T in (0.0, -5.0, math.nan, math.inf):
             with self.assertRaises(molq.MolqError) as cm:
                 self.h2.spin_conversion(T)
