@@ -208,9 +208,10 @@ typedef enum molq_rotor {
 /* Model of the internal degrees of freedom.  Added in 0.1.0.
  * MOLQ_MODEL_RRHO: rigid rotor (see molq_rotor), harmonic vibrations and
  *   an electronic level list: fast, good near room temperature.
- * MOLQ_MODEL_LEVELS: level-based models.  Polyatomics: hindered internal
- *   rotors (molq_spec_add_torsion) replace the harmonic modes they name;
- *   the rest as in RRHO.  Diatomics: explicit sum over the bound
+ * MOLQ_MODEL_LEVELS: level-based models.  Polyatomics: anharmonic
+ *   vibrational level sums (molq_spec_add_anharmonicity and friends) and
+ *   hindered internal rotors (molq_spec_add_torsion, replacing the harmonic
+ *   modes they name); the rest as in RRHO.  Diatomics: explicit sum over the bound
  *   ro-vibrational levels of every electronic state, term values from
  *   Dunham coefficients Y_kl (or the spectroscopic constants they stand
  *   for), each vibrational ladder stopped at the dissociation energy and
@@ -373,6 +374,33 @@ MOLQ_API molq_status molq_spec_add_torsion(molq_spec *spec, double f_cm1,
 MOLQ_API molq_status molq_spec_add_torsion_term(molq_spec *spec,
                                                 size_t torsion, int n,
                                                 double v_cm1);
+
+/* Anharmonic vibrations for MOLQ_MODEL_LEVELS (polyatomics): explicit sum
+ * over the bound levels of the second-order term values
+ *   G(v) = sum w_i (v_i + d_i/2) + sum_{i<=j} x_ij (v_i + d_i/2)(v_j + d_j/2)
+ *          + sum g_ii l_i^2,
+ * below the dissociation energy (molq_spec_set_dissociation_energy,
+ * required) and before any ladder turns over.  Modes are the vibrations in
+ * the order added (index from 0); their wavenumbers are read as observed
+ * fundamentals, from which the harmonic w_i follow, unless a harmonic
+ * wavenumber is set.  All values in cm^-1.  Each returns MOLQ_OK, MOLQ_EARG,
+ * MOLQ_ENOMEM or MOLQ_ELIMIT; indices are checked by molq_species_create.
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_harmonic_wavenumber(molq_spec *spec,
+                                                       size_t vibration,
+                                                       double w_cm1);
+MOLQ_API molq_status molq_spec_add_anharmonicity(molq_spec *spec, size_t i,
+                                                 size_t j, double x_cm1);
+/* g_ii of a doubly degenerate mode (vibrational angular momentum l). */
+MOLQ_API molq_status molq_spec_add_l_constant(molq_spec *spec, size_t i,
+                                              double g_cm1);
+/* Rotation-vibration constants alpha_i of mode i: one per rotational
+ * constant (1 linear, 3 nonlinear: A, B, C); B_k(v) = B_k - sum alpha_ik
+ * v_i enters each level's rotational partition function. */
+MOLQ_API molq_status molq_spec_add_rotation_vibration(molq_spec *spec,
+                                                      size_t i,
+                                                      const double *alpha_cm1,
+                                                      size_t n);
 
 /* Validate a description and build an immutable species from it.
  * On failure nothing is allocated, *out is untouched and err names the

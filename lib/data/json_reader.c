@@ -19,7 +19,11 @@
  * torsions (array of TORSION), TORSION keys: rotational_constant (F,
  * cm^-1) or reduced_moment (amu A^2), symmetry_number (integer, default 1),
  * barrier (array of {"n": integer, "V": cm^-1}), replaces_vibration
- * (index into vibrations). */
+ * (index into vibrations).
+ * Vibration entries may carry "harmonic" (w_i, cm^-1).  anharmonicity:
+ * {"x": [[i, j, x_ij], ...], "g": [[i, g_ii], ...],
+ *  "alpha": [[i, alpha_A, alpha_B, alpha_C] | [i, alpha], ...]} with mode
+ * indices into vibrations (cm^-1). */
 #include <jansson.h>
 #include <stdlib.h>
 #include <string.h>
@@ -97,9 +101,12 @@ static molq_status get_string(ctx *c, json_t *v, const char *field,
 /* An array of {value_key, "degeneracy"} objects appended with `add`. */
 static molq_status read_pairs(ctx *c, molq_spec *s, json_t *arr,
                               const char *field, const char *value_key,
-                              molq_status (*add)(molq_spec *, double, int))
+                              molq_status (*add)(molq_spec *, double, int),
+                              const char *extra_key,
+                              molq_status (*extra)(molq_spec *, size_t,
+                                                   double))
 {
-    const char *const allowed[] = {value_key, "degeneracy", NULL};
+    const char *const allowed[] = {value_key, "degeneracy", extra_key, NULL};
     char name[96];
     size_t i;
     json_t *item;
@@ -132,7 +139,82 @@ static molq_status read_pairs(ctx *c, molq_spec *s, json_t *arr,
                              "limits in the README)");
         if (st != MOLQ_OK)
             return st;
+        if (extra_key != NULL &&
+            (v = json_object_get(item, extra_key)) != NULL) {
+            snprintf(name, sizeof name, "%s[%zu].%s", field, i, extra_key);
+            if ((st = get_number(c, v, name, &value)) != MOLQ_OK ||
+                (st = extra(s, i, value)) != MOLQ_OK)
+                return st;
+        }
     }
+    return MOLQ_OK;
+}
+
+/* One list of the anharmonicity object: arrays of numbers whose first
+ * `nidx` entries are mode indices, then between nmin and nmax values. */
+static molq_status read_anh_list(ctx *c, molq_spec *s, json_t *list,
+                                 const char *key, size_t nidx, size_t nmin,
+                                 size_t nmax)
+{
+    char name[64];
+    size_t k, m;
+    json_t *row, *v;
+    snprintf(name, sizeof name, "anharmonicity.%s", key);
+    if (!json_is_array(list))
+        return key_error(c, MOLQ_ETYPE, name, "expected an array of arrays");
+    json_array_foreach(list, k, row) {
+        size_t idx[2] = {0, 0}, n = json_array_size(row);
+        double val[3] = {0, 0, 0};
+        molq_status st;
+        snprintf(name, sizeof name, "anharmonicity.%s[%zu]", key, k);
+        if (!json_is_array(row) || n < nidx + nmin || n > nidx + nmax)
+            return key_error(c, MOLQ_ETYPE, name, "expected [mode index(es), "
+                             "value(s)] (see the README)");
+        json_array_foreach(row, m, v) {
+            if (m < nidx) {
+                if (!json_is_integer(v) || json_integer_value(v) < 0 ||
+                    json_integer_value(v) > 100000)
+                    return key_error(c, MOLQ_ETYPE, name, "mode indices are "
+                                     "integers >= 0 into 'vibrations'");
+                idx[m] = (size_t)json_integer_value(v);
+            } else if ((st = get_number(c, v, name, &val[m - nidx])) !=
+                       MOLQ_OK) {
+                return st;
+            }
+        }
+        if (key[0] == 'x')
+            st = molq_spec_add_anharmonicity(s, idx[0], idx[1], val[0]);
+        else if (key[0] == 'g')
+            st = molq_spec_add_l_constant(s, idx[0], val[0]);
+        else
+            st = molq_spec_add_rotation_vibration(s, idx[0], val, n - nidx);
+        if (st == MOLQ_ELIMIT)
+            return key_error(c, st, name, "too many entries");
+        if (st != MOLQ_OK)
+            return st;
+    }
+    return MOLQ_OK;
+}
+
+static molq_status read_anharmonicity(ctx *c, molq_spec *s, json_t *obj)
+{
+    static const char *const keys[] = {"x", "g", "alpha", NULL};
+    json_t *v;
+    molq_status st;
+    if (!json_is_object(obj))
+        return key_error(c, MOLQ_ETYPE, "anharmonicity",
+                         "expected an object with x, g, alpha");
+    if ((st = check_keys(c, obj, keys, "anharmonicity.")) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(obj, "x")) != NULL &&
+        (st = read_anh_list(c, s, v, "x", 2, 1, 1)) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(obj, "g")) != NULL &&
+        (st = read_anh_list(c, s, v, "g", 1, 1, 1)) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(obj, "alpha")) != NULL &&
+        (st = read_anh_list(c, s, v, "alpha", 1, 1, 3)) != MOLQ_OK)
+        return st;
     return MOLQ_OK;
 }
 
@@ -140,7 +222,8 @@ static const char *const entry_keys[] = {
     "name", "formula", "molar_mass", "structure", "symmetry_number",
     "rotational_constants", "rotor", "vibrations", "electronic_levels",
     "formation_enthalpy_298", "source", "model", "dissociation_energy",
-    "spin_isomers", "odd_fraction", "diatomic_states", "torsions", NULL};
+    "spin_isomers", "odd_fraction", "diatomic_states", "torsions",
+    "anharmonicity", NULL};
 
 static const char *const torsion_keys[] = {
     "rotational_constant", "reduced_moment", "symmetry_number", "barrier",
@@ -388,6 +471,9 @@ static molq_status read_levels_model(ctx *c, json_t *e, molq_spec *s)
     if (json_object_get(e, "odd_fraction") != NULL && !s->spin_frozen)
         return key_error(c, MOLQ_EKEY, "odd_fraction", "only meaningful with "
                          "\"spin_isomers\": \"frozen\"");
+    if ((v = json_object_get(e, "anharmonicity")) != NULL &&
+        (st = read_anharmonicity(c, s, v)) != MOLQ_OK)
+        return st;
     if ((v = json_object_get(e, "torsions")) != NULL) {
         if (!json_is_array(v))
             return key_error(c, MOLQ_ETYPE, "torsions",
@@ -484,11 +570,13 @@ static molq_status read_entry(ctx *c, json_t *e, molq_spec *s)
     }
     if ((v = json_object_get(e, "vibrations")) != NULL &&
         (st = read_pairs(c, s, v, "vibrations", "wavenumber",
-                         molq_spec_add_vibration)) != MOLQ_OK)
+                         molq_spec_add_vibration, "harmonic",
+                         molq_spec_set_harmonic_wavenumber)) != MOLQ_OK)
         return st;
     if ((v = json_object_get(e, "electronic_levels")) != NULL &&
         (st = read_pairs(c, s, v, "electronic_levels", "energy",
-                         molq_spec_add_electronic_level)) != MOLQ_OK)
+                         molq_spec_add_electronic_level, NULL, NULL)) !=
+            MOLQ_OK)
         return st;
     if ((v = json_object_get(e, "formation_enthalpy_298")) != NULL) {
         if ((st = get_number(c, v, "formation_enthalpy_298", &x)) != MOLQ_OK)

@@ -39,6 +39,7 @@ void molq_spec_free(molq_spec *s)
     free(s->el_g);
     free(s->states);
     free(s->torsions);
+    free(s->vterms);
     free(s);
 }
 
@@ -68,6 +69,7 @@ molq_spec *molq_spec_clone(const molq_spec *s)
     c->el_g = NULL;
     c->states = NULL;
     c->torsions = NULL;
+    c->vterms = NULL;
     c->cap_vib = c->nvib;
     c->cap_el = c->nel;
     ok = (c->name = molq_strdup(s->name)) != NULL &&
@@ -80,7 +82,9 @@ molq_spec *molq_spec_clone(const molq_spec *s)
          copy_array((void **)&c->states, s->states,
                     s->nstates * sizeof(molq_spec_state)) &&
          copy_array((void **)&c->torsions, s->torsions,
-                    s->ntorsions * sizeof(molq_spec_torsion));
+                    s->ntorsions * sizeof(molq_spec_torsion)) &&
+         copy_array((void **)&c->vterms, s->vterms,
+                    s->nvterms * sizeof(molq_spec_vibterm));
     if (!ok) {
         molq_spec_free(c);
         return NULL;
@@ -105,8 +109,9 @@ molq_model molq_spec_default_model(const molq_spec *s)
 {
     if (s->has_model)
         return (molq_model)s->model;
-    return (s->nstates > 0 || s->ntorsions > 0) ? MOLQ_MODEL_LEVELS
-                                                : MOLQ_MODEL_RRHO;
+    return (s->nstates > 0 || s->ntorsions > 0 || s->nvterms > 0)
+               ? MOLQ_MODEL_LEVELS
+               : MOLQ_MODEL_RRHO;
 }
 
 molq_status molq_spec_set_model(molq_spec *s, molq_model model)
@@ -333,4 +338,118 @@ molq_status molq_spec_add_torsion_term(molq_spec *s, size_t torsion, int n,
     t->terms[t->nterms].v = v_cm1;
     t->nterms++;
     return MOLQ_OK;
+}
+
+static molq_status add_vterm(molq_spec *s, int kind, size_t i, size_t j,
+                             const double *v, size_t n)
+{
+    molq_spec_vibterm *nv;
+    size_t k;
+    if (s == NULL || n > 3 || (n > 0 && v == NULL))
+        return MOLQ_EARG;
+    if (s->nvterms >= 4 * MOLQ_MAX_ANHARM_MODES * MOLQ_MAX_ANHARM_MODES)
+        return MOLQ_ELIMIT;
+    nv = realloc(s->vterms, (s->nvterms + 1) * sizeof *nv);
+    if (nv == NULL)
+        return MOLQ_ENOMEM;
+    s->vterms = nv;
+    nv += s->nvterms++;
+    nv->kind = kind;
+    nv->i = i;
+    nv->j = j;
+    nv->n = n;
+    for (k = 0; k < 3; k++)
+        nv->v[k] = k < n ? v[k] : 0.0;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_harmonic_wavenumber(molq_spec *s, size_t vib,
+                                              double w_cm1)
+{
+    return add_vterm(s, MOLQ_VT_HARMONIC, vib, vib, &w_cm1, 1);
+}
+
+molq_status molq_spec_add_anharmonicity(molq_spec *s, size_t i, size_t j,
+                                        double x_cm1)
+{
+    return add_vterm(s, MOLQ_VT_X, i < j ? i : j, i < j ? j : i, &x_cm1, 1);
+}
+
+molq_status molq_spec_add_l_constant(molq_spec *s, size_t i, double g_cm1)
+{
+    return add_vterm(s, MOLQ_VT_G, i, i, &g_cm1, 1);
+}
+
+molq_status molq_spec_add_rotation_vibration(molq_spec *s, size_t i,
+                                             const double *alpha_cm1, size_t n)
+{
+    if (n == 0)
+        return MOLQ_EARG;
+    return add_vterm(s, MOLQ_VT_ALPHA, i, i, alpha_cm1, n);
+}
+
+int molq_spec_replaced(const molq_spec *s, size_t i)
+{
+    size_t k;
+    for (k = 0; k < s->ntorsions; k++)
+        if (s->torsions[k].replaces == (int)i)
+            return 1;
+    return 0;
+}
+
+void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out)
+{
+    size_t map[MOLQ_MAX_ANHARM_MODES + 1], i, j, k, n = 0;
+    int have_w[MOLQ_MAX_ANHARM_MODES] = {0};
+    memset(out, 0, sizeof *out);
+    for (i = 0; i < s->nvib && n < MOLQ_MAX_ANHARM_MODES; i++) {
+        map[i] = molq_spec_replaced(s, i) ? (size_t)-1 : n;
+        if (map[i] != (size_t)-1) {
+            out->d[n] = s->vib_deg[i];
+            out->w[n] = s->vib_wn[i]; /* fundamental until replaced */
+            n++;
+        }
+    }
+    out->n = n;
+    out->nrot = 0;
+    out->d0 = s->d0;
+    for (k = 0; k < s->nvterms; k++) {
+        const molq_spec_vibterm *t = &s->vterms[k];
+        size_t a = map[t->i], b = map[t->j];
+        if (a == (size_t)-1 || b == (size_t)-1)
+            continue;
+        switch (t->kind) {
+        case MOLQ_VT_HARMONIC:
+            out->w[a] = t->v[0];
+            have_w[a] = 1;
+            break;
+        case MOLQ_VT_X:
+            out->x[a][b] = t->v[0];
+            break;
+        case MOLQ_VT_G:
+            out->g[a] = t->v[0];
+            break;
+        case MOLQ_VT_ALPHA:
+            for (j = 0; j < t->n; j++)
+                out->alpha[a][j] = t->v[j];
+            out->nrot = t->n;
+            break;
+        }
+    }
+    for (k = 0; k < out->nrot; k++)
+        out->b0[k] = s->rot[k];
+    /* harmonic wavenumbers not given: from the fundamentals,
+     * nu_i = w_i + (1 + d_i) x_ii + 1/2 sum_{j != i} d_j x_ij (+ g_ii) */
+    for (i = 0; i < n; i++) {
+        double shift;
+        if (have_w[i])
+            continue;
+        shift = (1.0 + out->d[i]) * out->x[i][i];
+        for (j = 0; j < n; j++)
+            if (j != i)
+                shift += 0.5 * out->d[j] * (j < i ? out->x[j][i] : out->x[i][j]);
+        if (out->d[i] == 2)
+            shift += out->g[i];
+        out->w[i] -= shift;
+    }
 }

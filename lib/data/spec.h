@@ -38,6 +38,16 @@ typedef struct molq_spec_torsion {
     size_t nterms;
 } molq_spec_torsion;
 
+/* Anharmonic data of the vibrations: a harmonic wavenumber, an x_ij, an
+ * l constant g_ii, or rotation-vibration constants alpha_i (cm^-1). */
+enum { MOLQ_VT_HARMONIC, MOLQ_VT_X, MOLQ_VT_G, MOLQ_VT_ALPHA };
+typedef struct molq_spec_vibterm {
+    int kind;
+    size_t i, j;
+    double v[3];
+    size_t n;
+} molq_spec_vibterm;
+
 struct molq_spec_s {
     char *name;
     char *formula; /* NULL when not given */
@@ -65,6 +75,8 @@ struct molq_spec_s {
     int has_d0;
     molq_spec_torsion *torsions;
     size_t ntorsions;
+    molq_spec_vibterm *vterms;
+    size_t nvterms;
     int spin_frozen;     /* 1: frozen even/odd mixture, 0: equilibrium */
     double odd_fraction; /* frozen: mole fraction in odd-J levels */
 };
@@ -72,6 +84,13 @@ struct molq_spec_s {
 /* The states as the level generator takes them (default weights 1/sigma);
  * out has room for s->nstates entries. */
 void molq_spec_rovib_states(const molq_spec *s, molq_rovib_state *out);
+
+/* The anharmonic-vibration input of a spec with vibterms (validated
+ * indices), leaving out vibrations replaced by torsions. */
+void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out);
+
+/* Is vibration i replaced by a torsion? */
+int molq_spec_replaced(const molq_spec *s, size_t i);
 
 /* Deep copy (NULL on allocation failure). */
 molq_spec *molq_spec_clone(const molq_spec *s);

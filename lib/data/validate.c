@@ -2,6 +2,7 @@
  *   species 'NAME': field 'KEY': what is wrong (got VALUE)
  * using the key names of the species file, so a user can find the line. */
 #include <math.h>
+#include <stdio.h>
 #include <string.h>
 
 #include "core/errbuf.h"
@@ -87,6 +88,79 @@ static molq_status validate_states(const molq_spec *s, char *err,
         FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]': no "
              "level of this state lies below 'dissociation_energy' (%g "
              "cm^-1)", nm, empty, s->d0);
+    return MOLQ_OK;
+}
+
+static molq_status validate_anharmonic(const molq_spec *s, char *err,
+                                       size_t errlen)
+{
+    static const char *const what[] = {"vibrations[%zu].harmonic",
+                                       "anharmonicity.x", "anharmonicity.g",
+                                       "anharmonicity.alpha"};
+    const char *nm = s->name;
+    molq_anharm_input in;
+    size_t k, i, count, kept = 0;
+    if (s->structure == MOLQ_ATOM)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'anharmonicity': an atom has "
+             "no vibrations", nm);
+    if (!s->has_d0 || !isfinite(s->d0) || s->d0 <= 0.0)
+        FAIL(s->has_d0 ? MOLQ_EVALUE : MOLQ_EKEY, "species '%s': field "
+             "'dissociation_energy': %s (cm^-1 from the ground level, > 0; it "
+             "bounds the anharmonic level sum)", nm,
+             s->has_d0 ? "must be a finite number > 0" : "missing");
+    for (i = 0; i < s->nvib; i++) {
+        if (molq_spec_replaced(s, i))
+            continue;
+        kept++;
+        if (s->vib_deg[i] > 3)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'vibrations[%zu]."
+                 "degeneracy': the anharmonic model handles degeneracy 1, 2 "
+                 "or 3 (got %d)", nm, i, s->vib_deg[i]);
+    }
+    if (kept > MOLQ_MAX_ANHARM_MODES)
+        FAIL(MOLQ_ELIMIT, "species '%s': field 'anharmonicity': at most %d "
+             "vibrations in the anharmonic model (got %zu)", nm,
+             MOLQ_MAX_ANHARM_MODES, kept);
+    for (k = 0; k < s->nvterms; k++) {
+        const molq_spec_vibterm *t = &s->vterms[k];
+        char field[64];
+        size_t j;
+        snprintf(field, sizeof field, what[t->kind], t->i);
+        if (t->i >= s->nvib || t->j >= s->nvib)
+            FAIL(MOLQ_EVALUE, "species '%s': field '%s': mode index %zu is "
+                 "not one of the %zu vibrations", nm, field,
+                 t->i >= s->nvib ? t->i : t->j, s->nvib);
+        if (molq_spec_replaced(s, t->i) || molq_spec_replaced(s, t->j))
+            FAIL(MOLQ_EVALUE, "species '%s': field '%s': refers to a "
+                 "vibration replaced by a torsion", nm, field);
+        for (j = 0; j < t->n; j++)
+            if (!isfinite(t->v[j]))
+                FAIL(MOLQ_EVALUE, "species '%s': field '%s': must be finite",
+                     nm, field);
+        if (t->kind == MOLQ_VT_HARMONIC && !(t->v[0] > 0.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field '%s': must be > 0 cm^-1 "
+                 "(got %g)", nm, field, t->v[0]);
+        if (t->kind == MOLQ_VT_G && s->vib_deg[t->i] != 2)
+            FAIL(MOLQ_EVALUE, "species '%s': field '%s': an l constant needs "
+                 "a doubly degenerate mode (vibration %zu has degeneracy %d)",
+                 nm, field, t->i, s->vib_deg[t->i]);
+        if (t->kind == MOLQ_VT_ALPHA && t->n != s->nrot)
+            FAIL(MOLQ_EVALUE, "species '%s': field '%s': needs %zu values, one "
+                 "per rotational constant (got %zu)", nm, field, s->nrot,
+                 t->n);
+    }
+    molq_spec_anharm_input(s, &in);
+    for (i = 0; i < in.n; i++)
+        if (!(in.w[i] > 0.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'anharmonicity': the "
+                 "harmonic wavenumber of mode %zu comes out as %g cm^-1; check "
+                 "the fundamental and the x constants", nm, i, in.w[i]);
+    count = molq_anharm_count(&in, MOLQ_MAX_ROVIB_LEVELS);
+    if (count == (size_t)-1)
+        FAIL(MOLQ_ELIMIT, "species '%s': field 'anharmonicity': more than %d "
+             "vibrational levels below 'dissociation_energy'; a molecule this "
+             "large is better served by the rrho model", nm,
+             MOLQ_MAX_ROVIB_LEVELS);
     return MOLQ_OK;
 }
 
@@ -193,11 +267,13 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
              "(got code %d)", nm, s->model);
     if (s->ntorsions > 0 && (rc = validate_torsions(s, err, errlen)) != MOLQ_OK)
         return rc;
+    if (s->nvterms > 0 && (rc = validate_anharmonic(s, err, errlen)) != MOLQ_OK)
+        return rc;
     if (molq_spec_default_model(s) == MOLQ_MODEL_LEVELS && s->nstates == 0 &&
-        s->ntorsions == 0)
+        s->ntorsions == 0 && s->nvterms == 0)
         FAIL(MOLQ_EKEY, "species '%s': field 'diatomic_states': missing; the "
              "levels model needs level data: 'diatomic_states' for a "
-             "diatomic, 'torsions' for a polyatomic", nm);
+             "diatomic, 'anharmonicity' or 'torsions' for a polyatomic", nm);
 
     /* Rotational constants may be left out when a diatomic's states give
      * them (the RRHO variant derives B0 from the ground state). */

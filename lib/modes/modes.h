@@ -62,11 +62,27 @@ typedef struct molq_torsion_term {
     double v;
 } molq_torsion_term;
 
-typedef struct molq_torsion_params {
+/* A sorted level list evaluated through a table (torsion, anharmonic
+ * vibrations): modes/level_table.c. */
+typedef struct molq_level_table {
     size_t n;
-    double *theta, *w;    /* sorted levels (K) and weights 1/sigma_int */
+    double *theta, *w;    /* levels above the lowest (K), weights */
     molq_lnq_table table;
-} molq_torsion_params;
+} molq_level_table;
+
+/* Anharmonic vibrations (modes/anharmonic.c), all in cm^-1. */
+#define MOLQ_MAX_ANHARM_MODES 16
+typedef struct molq_anharm_input {
+    size_t n;                             /* modes */
+    int d[MOLQ_MAX_ANHARM_MODES];         /* degeneracies 1, 2, 3 */
+    double w[MOLQ_MAX_ANHARM_MODES];      /* harmonic wavenumbers */
+    double x[MOLQ_MAX_ANHARM_MODES][MOLQ_MAX_ANHARM_MODES]; /* i <= j */
+    double g[MOLQ_MAX_ANHARM_MODES];      /* l constants (d = 2) */
+    double alpha[MOLQ_MAX_ANHARM_MODES][3];
+    size_t nrot;                          /* 0 (no coupling), 1 or 3 */
+    double b0[3];                         /* ground-state constants */
+    double d0;                            /* dissociation energy */
+} molq_anharm_input;
 
 typedef struct molq_levels_params {
     size_t n;
@@ -82,7 +98,7 @@ struct molq_mode {
         molq_rotation_params rot;
         molq_levels_params lev; /* vibration (harmonic) and electronic */
         molq_rovib_params rv;
-        molq_torsion_params tor;
+        molq_level_table lt;
     } u;
     void *owned, *owned2; /* memory the mode allocated at init, freed
                              with it */
@@ -127,6 +143,25 @@ int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
 int molq_mode_torsion_init(molq_mode *m, double F,
                            const molq_torsion_term *terms, size_t nt,
                            int sigma);
+
+/* Finish a level-table mode whose m->u.lt.theta/w (n levels, in the block
+ * m->owned) are filled: sort them, shift to the lowest, compress a `dense`
+ * list (moment-preserving, see level_table.c), build the table, set kind
+ * and eval.  Returns 0, or -1 on allocation failure (the block is then
+ * freed and m->owned cleared). */
+int molq_level_table_finish(molq_mode *m, molq_mode_kind kind, int dense);
+
+/* Moment-preserving compression of a sorted level list (K), in place;
+ * returns the new count.  See modes/level_table.c. */
+size_t molq_levels_compress(double *theta, double *w, size_t n);
+
+/* Number of bound anharmonic vibrational levels (l sublevels counted), or
+ * (size_t)-1 once above `limit`. */
+size_t molq_anharm_count(const molq_anharm_input *in, size_t limit);
+
+/* Anharmonic vibration level sum (kind MOLQ_MODE_VIBRATION; the level
+ * count must have been checked).  Returns 0, or -1 on allocation failure. */
+int molq_mode_anharmonic_init(molq_mode *m, const molq_anharm_input *in);
 
 /* k1(frozen) - k1(equilibrium) at T: the spin-isomer conversion energy in
  * units of kT (frozen mixture: the mode's own, or the high-T one). */

@@ -16,7 +16,9 @@
  * which gives the mixture's U, Cv and S including its ideal mixing term.
  *
  * Speed: an exact sum costs one exp per populated level (thousands for N2
- * at combustion temperatures), so at build time the sum is sampled on a
+ * at combustion temperatures).  The dense upper part of each list is
+ * compressed with moment-preserving two-point rules (modes/level_table.c,
+ * below 1e-10 relative in cp), and at build time the sum is sampled on a
  * ln T grid (core/lnq_table.h) from TABLE_T_LO to TABLE_T_HI and evaluated
  * by interpolation with exact-derivative consistency; outside that range
  * the exact sum is used.
@@ -225,9 +227,11 @@ int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
     for (p = 0; p < 2; p++)
         if (s.n[p] > 0 && s.theta[p][0] < zero)
             zero = s.theta[p][0];
-    for (p = 0; p < 2; p++)
+    for (p = 0; p < 2; p++) {
         for (i = 0; i < s.n[p]; i++)
             s.theta[p][i] -= zero;
+        s.n[p] = molq_levels_compress(s.theta[p], s.w[p], s.n[p]);
+    }
 
     m->kind = MOLQ_MODE_ROVIBRONIC;
     m->eval = eval_rovibronic;

@@ -15,7 +15,7 @@
  * (1/sigma) sum_m e^{-F m^2 hc/kT}; a high n-fold barrier gives n nearly
  * degenerate copies of a harmonic oscillator of wavenumber n sqrt(F V_n),
  * i.e. one oscillator after division by sigma_int = n.
- * Evaluated through core/lnq_table.h like the diatomic level sums. */
+ * Evaluated through modes/level_table.c like the other level sums. */
 #include <gsl/gsl_eigen.h>
 #include <gsl/gsl_matrix.h>
 #include <gsl/gsl_vector.h>
@@ -26,9 +26,6 @@
 #include "modes/modes.h"
 
 #define TAIL_T_HI 50000.0      /* tail levels up to 60 kT at this T */
-#define TABLE_T_LO 1.0
-#define TABLE_T_HI 50000.0
-#define TABLE_STEP 0.03
 
 static int cmp_double(const void *a, const void *b)
 {
@@ -92,28 +89,11 @@ static int diagonalise(double F, const molq_torsion_term *terms, size_t nt,
     return 0;
 }
 
-static void exact_sum(const void *ctx, double T, molq_cumulants *out)
-{
-    const molq_torsion_params *t = ctx;
-    molq_moments m = {0.0, 0.0, 0.0, 0.0};
-    molq_moments_add_sorted(t->theta, t->w, t->n, 0.0, T, &m);
-    molq_moments_finish(&m, 0.0, T, out);
-}
-
-static void eval_torsion(const molq_mode *m, double T, double p,
-                         unsigned need, molq_cumulants *out)
-{
-    (void)p;
-    (void)need;
-    if (molq_lnq_table_eval(&m->u.tor.table, T, out) != 0)
-        exact_sum(&m->u.tor, T, out);
-}
-
 int molq_mode_torsion_init(molq_mode *m, double F,
                            const molq_torsion_term *terms, size_t nt,
                            int sigma)
 {
-    molq_torsion_params *t = &m->u.tor;
+    molq_level_table *t = &m->u.lt;
     double vsum = 0.0, v0 = 0.0, e0, *block, root;
     long keep, M, mtail, mmax, j, g = 0;
     size_t i, nlev, nbasis;
@@ -152,18 +132,8 @@ int molq_mode_torsion_init(molq_mode *m, double F,
     }
     (void)mtail;
     t->n = i;
-    qsort(t->theta, t->n, sizeof *t->theta, cmp_double);
     for (i = 0; i < t->n; i++)
         t->w[i] = 1.0 / (double)sigma;
-    m->kind = MOLQ_MODE_TORSION;
-    m->eval = eval_torsion;
     m->owned = block;
-    if (molq_lnq_table_build(&t->table, TABLE_T_LO, TABLE_T_HI, TABLE_STEP,
-                             exact_sum, t) != 0) {
-        free(block);
-        m->owned = NULL;
-        return -1;
-    }
-    m->owned2 = t->table.node;
-    return 0;
+    return molq_level_table_finish(m, MOLQ_MODE_TORSION, 0);
 }

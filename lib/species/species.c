@@ -43,19 +43,13 @@ typedef struct rrho_inputs {
     size_t nvib, nel;
 } rrho_inputs;
 
-/* Is vibration i replaced by a torsion (when torsions are in use)? */
-static int replaced(const molq_spec *spec, size_t i, int torsions)
+/* Is vibration i replaced by a torsion (in the levels model)? */
+static int replaced(const molq_spec *spec, size_t i, int levels)
 {
-    size_t k;
-    if (!torsions)
-        return 0;
-    for (k = 0; k < spec->ntorsions; k++)
-        if (spec->torsions[k].replaces == (int)i)
-            return 1;
-    return 0;
+    return levels && molq_spec_replaced(spec, i);
 }
 
-static void rrho_inputs_of(const molq_spec *spec, int torsions,
+static void rrho_inputs_of(const molq_spec *spec, int levels,
                            rrho_inputs *r)
 {
     size_t i;
@@ -64,7 +58,7 @@ static void rrho_inputs_of(const molq_spec *spec, int torsions,
         r->rot[i] = spec->rot[i];
     r->nvib = 0;
     for (i = 0; i < spec->nvib; i++)
-        r->nvib += !replaced(spec, i, torsions);
+        r->nvib += !replaced(spec, i, levels);
     r->nel = spec->nel > 0 ? spec->nel : 1;
     if (spec->nstates > 0 && spec->nrot == 0) {
         r->rot[0] = b_v(&spec->states[0], 0.5);
@@ -77,14 +71,14 @@ static void rrho_inputs_of(const molq_spec *spec, int torsions,
 }
 
 static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
-                             int torsions, double *vt, double *vg, double *et,
+                             int levels, double *vt, double *vg, double *et,
                              double *eg)
 {
     size_t i, k = 0;
     const molq_spec_state *x = spec->states;
     if (spec->nvib > 0) {
         for (i = 0; i < spec->nvib; i++) {
-            if (replaced(spec, i, torsions))
+            if (replaced(spec, i, levels))
                 continue;
             vt[k] = MOLQ_C2_CM_K * spec->vib_wn[i];
             vg[k++] = (double)spec->vib_deg[i];
@@ -112,15 +106,16 @@ static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
     }
 }
 
-/* Rigid rotor, harmonic vibrations and electronic levels; with `torsions`
- * the hindered rotors replace the vibrations they name. */
+/* Rigid rotor, harmonic vibrations and electronic levels; with `levels`
+ * (the polyatomic levels model) the hindered rotors replace the vibrations
+ * they name and anharmonic data turn the vibrations into a level sum. */
 static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
-                              int torsions, char *err, size_t errlen)
+                              int levels, char *err, size_t errlen)
 {
     rrho_inputs r;
     double *vt, *vg, *et, *eg;
     size_t k;
-    rrho_inputs_of(spec, torsions, &r);
+    rrho_inputs_of(spec, levels, &r);
     if (spec->structure != MOLQ_ATOM && r.nrot == 0) {
         molq_errf(err, errlen, "species '%s': field 'rotational_constants': "
                   "missing, needed by the rrho model", spec->name);
@@ -133,16 +128,23 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     vg = vt + r.nvib;
     et = vg + r.nvib;
     eg = et + r.nel;
-    fill_rrho_arrays(spec, &r, torsions, vt, vg, et, eg);
+    fill_rrho_arrays(spec, &r, levels, vt, vg, et, eg);
     if (spec->structure != MOLQ_ATOM)
         molq_mode_rotation_init(&sp->modes[sp->nmodes++],
                                 spec->structure == MOLQ_LINEAR,
                                 spec->rotor == MOLQ_ROTOR_CLASSICAL,
                                 spec->sigma, r.rot, &sp->t_min);
-    if (r.nvib > 0)
+    if (levels && spec->nvterms > 0) {
+        molq_anharm_input in;
+        molq_spec_anharm_input(spec, &in);
+        if (molq_mode_anharmonic_init(&sp->modes[sp->nmodes], &in) != 0)
+            return MOLQ_ENOMEM;
+        sp->nmodes++;
+    } else if (r.nvib > 0) {
         molq_mode_vibration_init(&sp->modes[sp->nmodes++], r.nvib, vt, vg);
+    }
     molq_mode_electronic_init(&sp->modes[sp->nmodes++], r.nel, et, eg);
-    for (k = 0; torsions && k < spec->ntorsions; k++) {
+    for (k = 0; levels && k < spec->ntorsions; k++) {
         const molq_spec_torsion *t = &spec->torsions[k];
         if (molq_mode_torsion_init(&sp->modes[sp->nmodes], t->f, t->terms,
                                    t->nterms, t->sigma) != 0)
@@ -156,12 +158,12 @@ static molq_status build_levels(molq_species *sp, const molq_spec *spec,
                                 char *err, size_t errlen)
 {
     molq_rovib_state st[MOLQ_MAX_STATES];
-    if (spec->nstates == 0 && spec->ntorsions > 0)
+    if (spec->nstates == 0 && (spec->ntorsions > 0 || spec->nvterms > 0))
         return build_rrho(sp, spec, 1, err, errlen);
     if (spec->nstates == 0) {
         molq_errf(err, errlen, "species '%s': field 'diatomic_states': "
-                  "missing, needed by the levels model (or 'torsions' for a "
-                  "polyatomic)", spec->name);
+                  "missing, needed by the levels model (or 'anharmonicity' or "
+                  "'torsions' for a polyatomic)", spec->name);
         return MOLQ_EVALUE;
     }
     molq_spec_rovib_states(spec, st);
