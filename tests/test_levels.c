@@ -88,7 +88,8 @@ END_TEST
  * product of harmonic oscillators (a degenerate mode's v quanta give v + 1
  * states through its l sublevels, a triply degenerate one (v+1)(v+2)/2).
  * The dissociation energy truncates below 1e-12 at these temperatures;
- * the level compression is below 1e-9.  Invented test molecules. */
+ * the level compression is below 1e-9.  The nonlinear one uses the
+ * classical rotor so only the vibrations differ.  Invented molecules. */
 START_TEST(anharmonic_reduces_to_harmonic)
 {
     static const char *js =
@@ -101,6 +102,7 @@ START_TEST(anharmonic_reduces_to_harmonic)
         " \"anharmonicity\": {\"x\": [[0, 0, 0]], \"g\": [[1, 0]]}},"
         "{\"name\": \"td\", \"molar_mass\": 16, \"structure\": \"nonlinear\","
         " \"symmetry_number\": 12, \"rotational_constants\": [5, 5, 5],"
+        " \"rotor\": \"classical\","
         " \"vibrations\": [{\"wavenumber\": 2900}, {\"wavenumber\": 1500,"
         " \"degeneracy\": 2}, {\"wavenumber\": 1300, \"degeneracy\": 3}],"
         " \"dissociation_energy\": 38000,"

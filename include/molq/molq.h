@@ -402,6 +402,17 @@ MOLQ_API molq_status molq_spec_add_rotation_vibration(molq_spec *spec,
                                                       const double *alpha_cm1,
                                                       size_t n);
 
+/* Nuclear-spin weights of a nonlinear molecule's rotational levels by the
+ * parity class of (Ka, Kc): ee, eo, oe, oo, on the conventional scale
+ * (water: 1/4, 3/4, 3/4, 1/4; the default 1/sigma for each class is the
+ * high-temperature limit).  Used by the exact rigid-top levels of
+ * MOLQ_MODEL_LEVELS, which replace the corrected rotor (and its lower
+ * temperature limit) for nonlinear molecules in that model.
+ * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_top_weights(molq_spec *spec, double ee,
+                                               double eo, double oe,
+                                               double oo);
+
 /* Validate a description and build an immutable species from it.
  * On failure nothing is allocated, *out is untouched and err names the
  * species and field ("species 'X': field 'symmetry_number': ...").

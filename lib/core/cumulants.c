@@ -126,3 +126,25 @@ void molq_moments_finish(const molq_moments *m, double zero, double T,
     out->k2 = r2 - mean * mean;
     out->k3 = m->m3 / m->q - 3.0 * mean * r2 + 2.0 * mean * mean * mean;
 }
+
+void molq_cumulants_blend(const molq_cumulants *a, const molq_cumulants *b,
+                          double x, double du, molq_cumulants *out)
+{
+    double om = 1.0 - x;
+    double s0 = x * x * x * x * (35.0 - 84.0 * x + 70.0 * x * x - 20.0 * x * x * x);
+    double s1 = 140.0 * x * x * x * om * om * om / du;
+    double s2 = 420.0 * x * x * om * om * (1.0 - 2.0 * x) / (du * du);
+    double s3 = 840.0 * x * om * (1.0 - 5.0 * x + 5.0 * x * x) / (du * du * du);
+    /* u-derivatives of ln q of each side */
+    double a1 = a->k1, a2 = a->k2 - a->k1, a3 = a->k3 - 3.0 * a->k2 + a->k1;
+    double b1 = b->k1, b2 = b->k2 - b->k1, b3 = b->k3 - 3.0 * b->k2 + b->k1;
+    double d0 = b->lnq - a->lnq, d1 = b1 - a1, d2 = b2 - a2;
+    double f1 = (1 - s0) * a1 + s0 * b1 + s1 * d0;
+    double f2 = (1 - s0) * a2 + s0 * b2 + 2.0 * s1 * d1 + s2 * d0;
+    double f3 = (1 - s0) * a3 + s0 * b3 + 3.0 * s1 * d2 + 3.0 * s2 * d1 +
+                s3 * d0;
+    out->lnq = (1 - s0) * a->lnq + s0 * b->lnq;
+    out->k1 = f1;
+    out->k2 = f2 + f1;
+    out->k3 = f3 + 3.0 * f2 + 2.0 * f1;
+}

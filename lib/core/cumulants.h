@@ -50,6 +50,14 @@ void molq_moments_add_sorted(const double *theta, const double *w, size_t n,
 void molq_moments_finish(const molq_moments *m, double zero, double T,
                          molq_cumulants *out);
 
+/* Smooth hand-over between two descriptions of the same partition
+ * function: f = (1 - s) f_a + s f_b in u = ln T, s the C^3 septic smoothstep
+ * of x = (u - u1)/du in [0, 1].  The cumulants of the blend follow from the
+ * derivatives of f (f_u = k1, f_uu = k2 - k1, f_uuu = k3 - 3k2 + k1), so
+ * thermodynamic consistency holds through the hand-over. */
+void molq_cumulants_blend(const molq_cumulants *a, const molq_cumulants *b,
+                          double x, double du, molq_cumulants *out);
+
 /* One harmonic oscillator with x = Theta/T, times weight d (degeneracy),
  * added to acc.  Uses exp(-x) and expm1 only; finite for any x >= 0
  * including +inf (which contributes nothing). */

@@ -11,7 +11,8 @@
 
 const char *const molq_json_levels_keys[] = {
     "model", "dissociation_energy", "spin_isomers", "odd_fraction",
-    "diatomic_states", "torsions", "anharmonicity", NULL};
+    "diatomic_states", "torsions", "anharmonicity", "rotational_weights",
+    NULL};
 
 static const char *const torsion_keys[] = {
     "rotational_constant", "reduced_moment", "symmetry_number", "barrier",
@@ -285,6 +286,34 @@ static molq_status read_anharmonicity(molq_json_ctx *c, molq_spec *s, json_t *ob
 }
 
 
+/* "rotational_weights": {"ee": w, "eo": w, "oe": w, "oo": w} of a
+ * nonlinear molecule's (Ka, Kc) parity classes. */
+static molq_status read_top_weights(molq_json_ctx *c, molq_spec *s,
+                                    json_t *obj)
+{
+    static const char *const keys[] = {"ee", "eo", "oe", "oo", NULL};
+    double w[4];
+    size_t k;
+    molq_status st;
+    if (!json_is_object(obj))
+        return molq_json_key_error(c, MOLQ_ETYPE, "rotational_weights",
+                                   "expected {\"ee\": w, \"eo\": w, "
+                                   "\"oe\": w, \"oo\": w}");
+    if ((st = molq_json_check_keys(c, obj, keys, "rotational_weights.")) !=
+        MOLQ_OK)
+        return st;
+    for (k = 0; k < 4; k++) {
+        char name[48];
+        json_t *v = json_object_get(obj, keys[k]);
+        snprintf(name, sizeof name, "rotational_weights.%s", keys[k]);
+        if (v == NULL)
+            return molq_json_key_error(c, MOLQ_EKEY, name, "missing");
+        if ((st = molq_json_number(c, v, name, &w[k])) != MOLQ_OK)
+            return st;
+    }
+    return molq_spec_set_top_weights(s, w[0], w[1], w[2], w[3]);
+}
+
 molq_status molq_json_read_levels(molq_json_ctx *c, json_t *e, molq_spec *s)
 {
     json_t *v, *item;
@@ -328,6 +357,9 @@ molq_status molq_json_read_levels(molq_json_ctx *c, json_t *e, molq_spec *s)
     if (json_object_get(e, "odd_fraction") != NULL && !s->spin_frozen)
         return molq_json_key_error(c, MOLQ_EKEY, "odd_fraction", "only meaningful with "
                          "\"spin_isomers\": \"frozen\"");
+    if ((v = json_object_get(e, "rotational_weights")) != NULL &&
+        (st = read_top_weights(c, s, v)) != MOLQ_OK)
+        return st;
     if ((v = json_object_get(e, "anharmonicity")) != NULL &&
         (st = read_anharmonicity(c, s, v)) != MOLQ_OK)
         return st;

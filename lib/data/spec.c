@@ -109,7 +109,8 @@ molq_model molq_spec_default_model(const molq_spec *s)
 {
     if (s->has_model)
         return (molq_model)s->model;
-    return (s->nstates > 0 || s->ntorsions > 0 || s->nvterms > 0)
+    return (s->nstates > 0 || s->ntorsions > 0 || s->nvterms > 0 ||
+            s->has_top_w)
                ? MOLQ_MODEL_LEVELS
                : MOLQ_MODEL_RRHO;
 }
@@ -452,4 +453,17 @@ void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out)
             shift += out->g[i];
         out->w[i] -= shift;
     }
+}
+
+molq_status molq_spec_set_top_weights(molq_spec *s, double ee, double eo,
+                                      double oe, double oo)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->top_w[0] = ee;
+    s->top_w[1] = eo;
+    s->top_w[2] = oe;
+    s->top_w[3] = oo;
+    s->has_top_w = 1;
+    return MOLQ_OK;
 }

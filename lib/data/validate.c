@@ -270,7 +270,8 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
     if (s->nvterms > 0 && (rc = validate_anharmonic(s, err, errlen)) != MOLQ_OK)
         return rc;
     if (molq_spec_default_model(s) == MOLQ_MODEL_LEVELS && s->nstates == 0 &&
-        s->ntorsions == 0 && s->nvterms == 0)
+        s->ntorsions == 0 && s->nvterms == 0 &&
+        s->structure != MOLQ_NONLINEAR)
         FAIL(MOLQ_EKEY, "species '%s': field 'diatomic_states': missing; the "
              "levels model needs level data: 'diatomic_states' for a "
              "diatomic, 'anharmonicity' or 'torsions' for a polyatomic", nm);
@@ -287,6 +288,18 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
             FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants[%zu]'"
                  ": must be a finite number > 0 cm^-1 (got %g)", nm, i,
                  s->rot[i]);
+    if (s->has_top_w) {
+        if (s->structure != MOLQ_NONLINEAR)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_weights': class "
+                 "weights (ee, eo, oe, oo) are for nonlinear molecules", nm);
+        for (i = 0; i < 4; i++)
+            if (!isfinite(s->top_w[i]) || s->top_w[i] < 0.0)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_weights': "
+                     "must be finite numbers >= 0 (got %g)", nm, s->top_w[i]);
+        if (s->top_w[0] + s->top_w[1] + s->top_w[2] + s->top_w[3] <= 0.0)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_weights': not "
+                 "all zero", nm);
+    }
     if (s->nrot == 3 && !(s->rot[0] >= s->rot[1] && s->rot[1] >= s->rot[2]))
         FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants': must be "
              "ordered A >= B >= C (got %g, %g, %g)", nm, s->rot[0], s->rot[1],

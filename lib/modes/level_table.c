@@ -81,18 +81,34 @@ static void exact_sum(const void *ctx, double T, molq_cumulants *out)
     molq_moments_finish(&m, 0.0, T, out);
 }
 
+void molq_level_table_cumulants(const molq_level_table *t, double T,
+                                molq_cumulants *out)
+{
+    if (molq_lnq_table_eval(&t->table, T, out) != 0)
+        exact_sum(t, T, out);
+}
+
 static void eval_level_table(const molq_mode *m, double T, double p,
                              unsigned need, molq_cumulants *out)
 {
     (void)p;
     (void)need;
-    if (molq_lnq_table_eval(&m->u.lt.table, T, out) != 0)
-        exact_sum(&m->u.lt, T, out);
+    molq_level_table_cumulants(&m->u.lt, T, out);
 }
 
 int molq_level_table_finish(molq_mode *m, molq_mode_kind kind, int dense)
 {
-    molq_level_table *t = &m->u.lt;
+    if (molq_level_table_finish_at(m, &m->u.lt, kind, dense, 1, TABLE_T_HI) !=
+        0)
+        return -1;
+    m->eval = eval_level_table;
+    return 0;
+}
+
+int molq_level_table_finish_at(molq_mode *m, molq_level_table *t,
+                               molq_mode_kind kind, int dense, int shift,
+                               double t_hi)
+{
     double *pairs = malloc(2 * t->n * sizeof *pairs + 1), zero;
     size_t i;
     if (pairs == NULL)
@@ -102,7 +118,7 @@ int molq_level_table_finish(molq_mode *m, molq_mode_kind kind, int dense)
         pairs[2 * i + 1] = t->w[i];
     }
     qsort(pairs, t->n, 2 * sizeof *pairs, cmp_pair);
-    zero = t->n > 0 ? pairs[0] : 0.0;
+    zero = (shift && t->n > 0) ? pairs[0] : 0.0;
     for (i = 0; i < t->n; i++) {
         t->theta[i] = pairs[2 * i] - zero;
         t->w[i] = pairs[2 * i + 1];
@@ -111,8 +127,7 @@ int molq_level_table_finish(molq_mode *m, molq_mode_kind kind, int dense)
     if (dense)
         t->n = molq_levels_compress(t->theta, t->w, t->n);
     m->kind = kind;
-    m->eval = eval_level_table;
-    if (molq_lnq_table_build(&t->table, TABLE_T_LO, TABLE_T_HI, TABLE_STEP,
+    if (molq_lnq_table_build(&t->table, TABLE_T_LO, t_hi, TABLE_STEP,
                              exact_sum, t) != 0)
         goto fail;
     m->owned2 = t->table.node;

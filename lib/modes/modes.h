@@ -99,6 +99,11 @@ struct molq_mode {
         molq_levels_params lev; /* vibration (harmonic) and electronic */
         molq_rovib_params rv;
         molq_level_table lt;
+        struct molq_asymtop_params {
+            molq_level_table lt;       /* exact levels, T <= t2 */
+            molq_rotation_params high; /* corrected rotor, T >= t1 */
+            double u1, du;             /* hand-over in ln T */
+        } top;
     } u;
     void *owned, *owned2; /* memory the mode allocated at init, freed
                              with it */
@@ -138,6 +143,17 @@ size_t molq_rovib_count(const molq_rovib_state *st, size_t n, double d0,
 int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
                               size_t n, double d0, int frozen, double x_odd);
 
+/* Cumulants of the (corrected or classical) rigid rotor at T. */
+void molq_rotation_cumulants(const molq_rotation_params *r, double T,
+                             unsigned need, molq_cumulants *out);
+
+/* Exact rigid asymmetric top (A >= B >= C, cm^-1) with nuclear-spin weights
+ * w[4] of the (Ka, Kc) parity classes ee, eo, oe, oo (conventional scale),
+ * handing over to the corrected rotor between 30 and 60 theta_A.  Returns
+ * 0, or -1 on allocation failure. */
+int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
+                           const double *w);
+
 /* Hindered internal rotor with constant F (cm^-1), potential terms and
  * internal symmetry number.  Returns 0, or -1 on allocation failure. */
 int molq_mode_torsion_init(molq_mode *m, double F,
@@ -150,6 +166,17 @@ int molq_mode_torsion_init(molq_mode *m, double F,
  * and eval.  Returns 0, or -1 on allocation failure (the block is then
  * freed and m->owned cleared). */
 int molq_level_table_finish(molq_mode *m, molq_mode_kind kind, int dense);
+
+/* Cumulants of a finished level table at T (table, or exact sum). */
+void molq_level_table_cumulants(const molq_level_table *t, double T,
+                                molq_cumulants *out);
+
+/* The same for a level table held elsewhere in the mode (t), tabulated up
+ * to t_hi only, energies shifted to the lowest level only if `shift` (the
+ * caller sets m->eval). */
+int molq_level_table_finish_at(molq_mode *m, molq_level_table *t,
+                               molq_mode_kind kind, int dense, int shift,
+                               double t_hi);
 
 /* Moment-preserving compression of a sorted level list (K), in place;
  * returns the new count.  See modes/level_table.c. */

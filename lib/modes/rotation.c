@@ -58,12 +58,10 @@ static void linear_exact_sum(double y, double sigma, molq_cumulants *out)
     out->k3 = m3 / q - 3.0 * mean * (m2 / q) + 2.0 * mean * mean * mean;
 }
 
-static void eval_rotation(const molq_mode *m, double T, double p,
-                          unsigned need, molq_cumulants *out)
+void molq_rotation_cumulants(const molq_rotation_params *r, double T,
+                             unsigned need, molq_cumulants *out)
 {
-    const molq_rotation_params *r = &m->u.rot;
     double a = r->linear ? 1.0 : 1.5;
-    (void)p;
     if (r->linear && !r->classical && r->theta / T > LINEAR_SERIES_MAX) {
         linear_exact_sum(r->theta / T, r->sigma, out);
         return;
@@ -81,6 +79,13 @@ static void eval_rotation(const molq_mode *m, double T, double p,
         out->k2 += c.k2;
         out->k3 += c.k3;
     }
+}
+
+static void eval_rotation(const molq_mode *m, double T, double p,
+                          unsigned need, molq_cumulants *out)
+{
+    (void)p;
+    molq_rotation_cumulants(&m->u.rot, T, need, out);
 }
 
 void molq_mode_rotation_init(molq_mode *m, int linear, int classical,

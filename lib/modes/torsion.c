@@ -16,13 +16,11 @@
  * degenerate copies of a harmonic oscillator of wavenumber n sqrt(F V_n),
  * i.e. one oscillator after division by sigma_int = n.
  * Evaluated through modes/level_table.c like the other level sums. */
-#include <gsl/gsl_eigen.h>
-#include <gsl/gsl_matrix.h>
-#include <gsl/gsl_vector.h>
 #include <math.h>
 #include <stdlib.h>
 
 #include "core/constants.h"
+#include "core/eigen.h"
 #include "modes/modes.h"
 
 #define TAIL_T_HI 50000.0      /* tail levels up to 60 kT at this T */
@@ -44,8 +42,7 @@ static long gcd(long a, long b)
 }
 
 /* Diagonalise in the basis |m| <= M, one block per residue of m modulo g;
- * writes the 2M+1 eigenvalues (cm^-1, ascending) to ev.  Uses caller-owned
- * memory only: GSL allocates nothing and cannot reach its error handler. */
+ * writes the 2M+1 eigenvalues (cm^-1, ascending) to ev. */
 static int diagonalise(double F, const molq_torsion_term *terms, size_t nt,
                        long M, long g, double *ev)
 {
@@ -60,9 +57,6 @@ static int diagonalise(double F, const molq_torsion_term *terms, size_t nt,
     for (r = 0; r < g; r++) {
         /* block members: m = -M + r, -M + r + g, ... <= M */
         size_t n = (size_t)((2 * M - r) / g + 1), i;
-        gsl_eigen_symm_workspace ws;
-        gsl_matrix_view A;
-        gsl_vector_view E;
         for (i = 0; i < n * n; i++)
             a[i] = 0.0;
         for (i = 0; i < n; i++) {
@@ -76,12 +70,7 @@ static int diagonalise(double F, const molq_torsion_term *terms, size_t nt,
                 }
             }
         }
-        ws.size = n;
-        ws.d = a + n * n;
-        ws.sd = a + n * n + n;
-        A = gsl_matrix_view_array(a, n, n);
-        E = gsl_vector_view_array(ev + got, n);
-        gsl_eigen_symm(&A.matrix, &E.vector, &ws);
+        molq_eigen_symm(a, n, a + n * n, ev + got);
         got += n;
     }
     free(a);

@@ -129,11 +129,23 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     et = vg + r.nvib;
     eg = et + r.nel;
     fill_rrho_arrays(spec, &r, levels, vt, vg, et, eg);
-    if (spec->structure != MOLQ_ATOM)
+    if (levels && spec->structure == MOLQ_NONLINEAR &&
+        spec->rotor == MOLQ_ROTOR_CORRECTED) {
+        /* the exact top, with spin weights: valid at every T */
+        double w[4], d = 1.0 / spec->sigma;
+        int k;
+        for (k = 0; k < 4; k++)
+            w[k] = spec->has_top_w ? spec->top_w[k] : d;
+        if (molq_mode_asymtop_init(&sp->modes[sp->nmodes], r.rot, spec->sigma,
+                                   w) != 0)
+            return MOLQ_ENOMEM;
+        sp->nmodes++;
+    } else if (spec->structure != MOLQ_ATOM) {
         molq_mode_rotation_init(&sp->modes[sp->nmodes++],
                                 spec->structure == MOLQ_LINEAR,
                                 spec->rotor == MOLQ_ROTOR_CLASSICAL,
                                 spec->sigma, r.rot, &sp->t_min);
+    }
     if (levels && spec->nvterms > 0) {
         molq_anharm_input in;
         molq_spec_anharm_input(spec, &in);
@@ -158,7 +170,8 @@ static molq_status build_levels(molq_species *sp, const molq_spec *spec,
                                 char *err, size_t errlen)
 {
     molq_rovib_state st[MOLQ_MAX_STATES];
-    if (spec->nstates == 0 && (spec->ntorsions > 0 || spec->nvterms > 0))
+    if (spec->nstates == 0 && (spec->ntorsions > 0 || spec->nvterms > 0 ||
+                               spec->structure == MOLQ_NONLINEAR))
         return build_rrho(sp, spec, 1, err, errlen);
     if (spec->nstates == 0) {
         molq_errf(err, errlen, "species '%s': field 'diatomic_states': "

@@ -1,0 +1,164 @@
+/* Exact rigid-top rotation (the levels model of nonlinear molecules).
+ * Closed forms used (textbook results for the rigid rotor, e.g. Townes &
+ * Schawlow, Microwave Spectroscopy, ch. 4; from memory):
+ *  - symmetric prolate top: E(J, K) = B J(J+1) + (A - B) K^2, each K > 0
+ *    twice;
+ *  - asymmetric top, J <= 2: 0_00 = 0; 1_01 = B + C, 1_11 = A + C,
+ *    1_10 = A + B; 2_12 = A + B + 4C, 2_11 = A + 4B + C, 2_21 = 4A + B + C,
+ *    2_02 / 2_20 = 2(A + B + C) -/+ 2 sqrt((B - C)^2 + (A - C)(A - B)).
+ * Nuclear-spin weights by (Ka, Kc) parity class (water: Ka + Kc odd is
+ * ortho, weight 3/4 on the conventional scale; even is para, 1/4): common
+ * practice. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "testutil.h"
+
+static size_t rot_index(const molq_species *sp)
+{
+    size_t i;
+    for (i = 0; i < molq_species_mode_count(sp); i++) {
+        molq_mode_kind k;
+        molq_species_mode_kind(sp, i, &k);
+        if (k == MOLQ_MODE_ROTATION)
+            return i;
+    }
+    ck_abort_msg("no rotation mode");
+    return 0;
+}
+
+static double rot_lnq(const molq_species *sp, double T)
+{
+    double v;
+    ck_assert_int_eq(molq_eval_mode(sp, rot_index(sp), T, 1e5, MOLQ_LNQ, &v),
+                     MOLQ_OK);
+    return v;
+}
+
+/* Invented test molecules; "model": "levels" selects the exact top. */
+static const char *const js =
+    "{\"species\": ["
+    "{\"name\": \"prolate\", \"molar_mass\": 20, \"structure\": \"nonlinear\","
+    " \"rotational_constants\": [5, 1, 1], \"model\": \"levels\"},"
+    "{\"name\": \"water-like\", \"molar_mass\": 18, \"structure\": \"nonlinear\","
+    " \"symmetry_number\": 2, \"rotational_constants\": [27.9, 14.5, 9.3],"
+    " \"model\": \"levels\","
+    " \"rotational_weights\": {\"ee\": 0.25, \"eo\": 0.75, \"oe\": 0.75,"
+    " \"oo\": 0.25}}]}";
+
+START_TEST(symmetric_top_exact)
+{
+    molq_db *db;
+    const molq_species *sp;
+    const double A = 5 * T_C2, B = 1 * T_C2;
+    const double temps[] = {0.5, 2.0, 10.0, 40.0, 80.0};
+    size_t i;
+    tu_from_json(js, &db);
+    ck_assert_int_eq(molq_db_find(db, "prolate", &sp), MOLQ_OK);
+    ck_assert_double_eq(molq_species_t_min(sp), 0.0);
+    for (i = 0; i < 5; i++) {
+        double q = 0.0, T = temps[i];
+        int J, K;
+        for (J = 0; J < 600; J++)
+            for (K = 0; K <= J; K++) {
+                double E = B * J * (J + 1.0) + (A - B) * K * K;
+                if (E / T < 700)
+                    q += (2 * J + 1) * (K ? 2 : 1) * exp(-E / T);
+            }
+        /* below the hand-over (15 theta_A = 108 K): exact levels */
+        ck_assert_close(rot_lnq(sp, T), log(q), 1e-11, 1.0);
+    }
+    molq_db_free(db);
+}
+END_TEST
+
+START_TEST(asymmetric_top_low_levels)
+{
+    molq_db *db;
+    const molq_species *sp;
+    const double A = 27.9, B = 14.5, C = 9.3, T = 6.0;
+    double r = 2 * sqrt((B - C) * (B - C) + (A - C) * (A - B));
+    /* energy, parity class weight */
+    const double lev[][2] = {
+        {0, 0.25},                          /* 0_00 ee */
+        {B + C, 0.75}, {A + C, 0.25}, {A + B, 0.75}, /* 1_01 eo, 1_11 oo, 1_10 oe */
+        {A + B + 4 * C, 0.75},              /* 2_12 oe */
+        {A + 4 * B + C, 0.25},              /* 2_11 oo */
+        {4 * A + B + C, 0.75},              /* 2_21 oe */
+        {2 * (A + B + C) - r, 0.25},        /* 2_02 ee */
+        {2 * (A + B + C) + r, 0.25},        /* 2_20 ee */
+    };
+    const int J[] = {0, 1, 1, 1, 2, 2, 2, 2, 2};
+    double q = 0.0;
+    size_t i;
+    tu_from_json(js, &db);
+    ck_assert_int_eq(molq_db_find(db, "water-like", &sp), MOLQ_OK);
+    for (i = 0; i < 9; i++)
+        q += (2 * J[i] + 1) * lev[i][1] * exp(-T_C2 * lev[i][0] / T);
+    /* J = 3 starts near 140 cm^-1: below 3e-15 of q at 6 K */
+    ck_assert_close(rot_lnq(sp, T), log(q), 1e-12, 1.0);
+    /* At high T the spin weights average to 1/sigma, so the exact top
+     * approaches the corrected rotor; what remains is that formula's
+     * truncation, which must fall as (theta_A/T)^2 (a wrong weight would
+     * leave a constant offset instead).  Both temperatures lie below the
+     * hand-over (30 theta_A), where the exact levels are used. */
+    {
+        molq_species *rr;
+        char err[128];
+        double d1, d2;
+        ck_assert_int_eq(molq_species_with_model(sp, MOLQ_MODEL_RRHO, &rr, err,
+                                                 sizeof err),
+                         MOLQ_OK);
+        d1 = rot_lnq(sp, 300.0) - rot_lnq(rr, 300.0);
+        d2 = rot_lnq(sp, 600.0) - rot_lnq(rr, 600.0);
+        ck_assert_msg(fabs(d1) < 1e-3, "difference at 300 K: %g", d1);
+        ck_assert_msg(fabs(d1 / d2 - 4.0) < 0.4,
+                      "differences %g (300 K) and %g (600 K) do not fall "
+                      "as 1/T^2",
+                      d1, d2);
+        molq_species_free(rr);
+    }
+    molq_db_free(db);
+}
+END_TEST
+
+/* Below theta_A the corrected rotor refuses (MOLQ_ERANGE); the exact top
+ * of the levels model answers, finite, down to 1e-3 K. */
+START_TEST(low_temperature_water)
+{
+    const molq_species *h2o = tu_species("H2O");
+    const molq_species *rr = tu_species_model("H2O", MOLQ_MODEL_RRHO);
+    double v;
+    ck_assert_int_eq(molq_eval(rr, 20.0, 1e5, MOLQ_CP, &v), MOLQ_ERANGE);
+    ck_assert_double_eq(molq_species_t_min(h2o), 0.0);
+    ck_assert(isfinite(tu_eval(h2o, 20.0, 1e5, MOLQ_CP)));
+    ck_assert(isfinite(tu_eval(h2o, 1e-3, 1e5, MOLQ_S)));
+    /* at 1 K only 0_00 (para) is populated: the rotational entropy on the
+     * conventional scale is R ln(1/4) */
+    {
+        double s;
+        ck_assert_int_eq(molq_eval_mode(h2o, rot_index(h2o), 1.0, 1e5, MOLQ_S,
+                                        &s),
+                         MOLQ_OK);
+        ck_assert_close(s, T_R * log(0.25), 1e-9, 0.0);
+    }
+}
+END_TEST
+
+int main(void)
+{
+    Suite *s = suite_create("top");
+    TCase *tc = tcase_create("top");
+    SRunner *sr;
+    int failed;
+    tcase_set_timeout(tc, 120);
+    tcase_add_test(tc, symmetric_top_exact);
+    tcase_add_test(tc, asymmetric_top_low_levels);
+    tcase_add_test(tc, low_temperature_water);
+    suite_add_tcase(s, tc);
+    sr = srunner_create(s);
+    srunner_run_all(sr, CK_NORMAL);
+    failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+}
