@@ -12,7 +12,7 @@
  * nuclear-spin weight (conventional scale; for water 1/4 for Ka + Kc even,
  * 3/4 for odd).
  *
- * Levels are kept up to 60 kT at T2 = 60 theta_A; the exact sum (tabulated)
+ * Levels are kept up to 40 kT at T2 = 60 theta_A; the exact sum (tabulated)
  * is used up to T1 = 30 theta_A, the corrected high-temperature rotor
  * (rotation.c) above T2, and a C^3 blend in ln T in between
  * (core/cumulants.h), so the mode is valid at every T.  The corrected
@@ -27,7 +27,7 @@
 
 #define HANDOVER_LO 30.0 /* x theta_A */
 #define HANDOVER_HI 60.0
-#define KEEP 60.0        /* levels up to KEEP kT at T2 */
+#define KEEP 40.0        /* levels up to KEEP kT at T2 (e^-40 = 4e-18) */
 
 typedef struct top_sink {
     double *theta, *w;
@@ -154,7 +154,7 @@ int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
     t->lt.w = fill.w;
     m->owned = block_mem;
     /* energies stay measured from J = 0, as in the high-T formula */
-    if (molq_level_table_finish_at(m, &t->lt, MOLQ_MODE_ROTATION, 0, 0,
+    if (molq_level_table_finish_at(m, &t->lt, MOLQ_MODE_ROTATION, 1, 0,
                                    1.05 * t2) != 0)
         return -1;
     m->eval = eval_asymtop;
