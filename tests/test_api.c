@@ -355,8 +355,6 @@ int main(void)
 {
     Suite *s = suite_create("api");
     TCase *tc = tcase_create("api");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, version_and_names);
     tcase_add_test(tc, argument_checks);
@@ -369,9 +367,5 @@ int main(void)
     tcase_add_test(tc, io_errors);
     tcase_add_test(tc, threads_share_species);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

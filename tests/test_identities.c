@@ -180,8 +180,6 @@ int main(void)
 {
     Suite *s = suite_create("identities");
     TCase *tc = tcase_create("identities");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, identities_builtin);
     tcase_add_test(tc, identities_classical_rotor);
@@ -189,9 +187,5 @@ int main(void)
     tcase_add_test(tc, pressure_dependence);
     tcase_add_test(tc, enthalpy_scale);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

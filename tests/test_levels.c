@@ -258,8 +258,6 @@ int main(void)
 {
     Suite *s = suite_create("levels");
     TCase *tc = tcase_create("levels");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_loop_test(tc, levels_reach_tables, 0,
                         sizeof targets / sizeof targets[0]);
@@ -270,9 +268,5 @@ int main(void)
     tcase_add_test(tc, spin_isomers);
     tcase_add_test(tc, model_variants);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

@@ -90,14 +90,8 @@ int main(void)
 {
     Suite *s = suite_create("table");
     TCase *tc = tcase_create("table");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, table_against_closed_forms);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

@@ -162,8 +162,6 @@ int main(void)
 {
     Suite *s = suite_create("tables");
     TCase *tc = tcase_create("published");
-    SRunner *sr;
-    int failed;
     tcase_add_test(tc, argon_every_row);
     tcase_add_loop_test(tc, standard_values_298, 0,
                         sizeof refs / sizeof refs[0]);
@@ -171,9 +169,5 @@ int main(void)
                         sizeof molecules / sizeof molecules[0]);
     tcase_add_test(tc, deviation_report);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

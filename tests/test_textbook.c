@@ -249,8 +249,6 @@ int main(void)
 {
     Suite *s = suite_create("textbook");
     TCase *tc = tcase_create("formulas");
-    SRunner *sr;
-    int failed;
     tcase_add_checked_fixture(tc, demo_setup, demo_teardown);
     tcase_add_test(tc, sackur_tetrode_argon);
     tcase_add_test(tc, high_temperature_limits);
@@ -260,9 +258,5 @@ int main(void)
     tcase_add_test(tc, classical_rotor_formula);
     tcase_add_test(tc, modes_add_up);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

@@ -149,16 +149,10 @@ int main(void)
 {
     Suite *s = suite_create("top");
     TCase *tc = tcase_create("top");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, symmetric_top_exact);
     tcase_add_test(tc, asymmetric_top_low_levels);
     tcase_add_test(tc, low_temperature_water);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

@@ -153,16 +153,10 @@ int main(void)
 {
     Suite *s = suite_create("torsion");
     TCase *tc = tcase_create("torsion");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, free_rotor_limit);
     tcase_add_test(tc, high_barrier_limit);
     tcase_add_test(tc, ethane_published);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

@@ -6,6 +6,16 @@
 
 static molq_db *builtin;
 
+int tu_run(Suite *s)
+{
+    SRunner *sr = srunner_create(s);
+    int failed;
+    srunner_run_all(sr, CK_NORMAL);
+    failed = srunner_ntests_failed(sr);
+    srunner_free(sr);
+    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+}
+
 const molq_db *tu_builtin(void)
 {
     if (builtin == NULL) {

@@ -22,6 +22,9 @@
 const molq_db *tu_builtin(void);
 const molq_species *tu_species(const char *name);
 
+/* Run a suite (normal output) and return the process exit status. */
+int tu_run(Suite *s);
+
 /* A built-in species rebuilt with another model (cached per process). */
 const molq_species *tu_species_model(const char *name, molq_model model);
 

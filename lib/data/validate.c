@@ -17,6 +17,17 @@
 static const size_t rot_count[3] = {0, 1, 3};
 static const char *const structure_name[3] = {"atom", "linear", "nonlinear"};
 
+/* Level sums need the dissociation energy that bounds their ladders. */
+static molq_status check_d0(const molq_spec *s, char *err, size_t errlen)
+{
+    if (!s->has_d0 || !isfinite(s->d0) || s->d0 <= 0.0)
+        FAIL(s->has_d0 ? MOLQ_EVALUE : MOLQ_EKEY, "species '%s': field "
+             "'dissociation_energy': %s (cm^-1 from the ground level, > 0; "
+             "it bounds every level sum)", s->name,
+             s->has_d0 ? "must be a finite number > 0" : "missing");
+    return MOLQ_OK;
+}
+
 /* Names of the Dunham entries in the usual notation, for messages. */
 static const char *dunham_name(int k, int l)
 {
@@ -34,14 +45,12 @@ static molq_status validate_states(const molq_spec *s, char *err,
     molq_rovib_state st[MOLQ_MAX_STATES];
     size_t i, empty, count;
     int k, l, ground = 0;
+    molq_status rc;
     if (s->structure != MOLQ_LINEAR)
         FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states': level sums "
              "are for diatomics; the structure must be linear", nm);
-    if (!s->has_d0 || !isfinite(s->d0) || s->d0 <= 0.0)
-        FAIL(s->has_d0 ? MOLQ_EVALUE : MOLQ_EKEY, "species '%s': field "
-             "'dissociation_energy': %s (cm^-1 from the ground level, > 0; "
-             "it bounds every level ladder)", nm,
-             s->has_d0 ? "must be a finite number > 0" : "missing");
+    if ((rc = check_d0(s, err, errlen)) != MOLQ_OK)
+        return rc;
     if (s->spin_frozen && !(s->odd_fraction > 0.0 && s->odd_fraction < 1.0))
         FAIL(MOLQ_EVALUE, "species '%s': field 'odd_fraction': must lie "
              "strictly between 0 and 1 (got %g)", nm, s->odd_fraction);
@@ -100,14 +109,12 @@ static molq_status validate_anharmonic(const molq_spec *s, char *err,
     const char *nm = s->name;
     molq_anharm_input in;
     size_t k, i, count, kept = 0;
+    molq_status rc;
     if (s->structure == MOLQ_ATOM)
         FAIL(MOLQ_EVALUE, "species '%s': field 'anharmonicity': an atom has "
              "no vibrations", nm);
-    if (!s->has_d0 || !isfinite(s->d0) || s->d0 <= 0.0)
-        FAIL(s->has_d0 ? MOLQ_EVALUE : MOLQ_EKEY, "species '%s': field "
-             "'dissociation_energy': %s (cm^-1 from the ground level, > 0; it "
-             "bounds the anharmonic level sum)", nm,
-             s->has_d0 ? "must be a finite number > 0" : "missing");
+    if ((rc = check_d0(s, err, errlen)) != MOLQ_OK)
+        return rc;
     for (i = 0; i < s->nvib; i++) {
         if (molq_spec_replaced(s, i))
             continue;

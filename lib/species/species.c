@@ -10,28 +10,17 @@ static char *dup_or_empty(const char *s)
     return molq_strdup(s != NULL ? s : "");
 }
 
-/* Term value G(v) + B_v J(J+1) terms of a state at J = 0 (cm^-1). */
-static double vib_term(const molq_spec_state *st, double vh)
+/* Column l of a state's Dunham expansion at v + 1/2 = vh (cm^-1):
+ * l = 0 gives G(v), l = 1 gives B_v. */
+static double dunham_column(const molq_spec_state *st, int l, double vh)
 {
     double e = 0.0, vk = 1.0;
     int k;
     for (k = 0; k < MOLQ_DUNHAM_K; k++) {
-        e += st->y[k][0] * vk;
+        e += st->y[k][l] * vk;
         vk *= vh;
     }
     return e;
-}
-
-/* B_v of a state (cm^-1). */
-static double b_v(const molq_spec_state *st, double vh)
-{
-    double b = 0.0, vk = 1.0;
-    int k;
-    for (k = 0; k < MOLQ_DUNHAM_K; k++) {
-        b += st->y[k][1] * vk;
-        vk *= vh;
-    }
-    return b;
 }
 
 /* RRHO inputs: explicit ones from the spec, or derived from the diatomic
@@ -61,7 +50,7 @@ static void rrho_inputs_of(const molq_spec *spec, int levels,
         r->nvib += !replaced(spec, i, levels);
     r->nel = spec->nel > 0 ? spec->nel : 1;
     if (spec->nstates > 0 && spec->nrot == 0) {
-        r->rot[0] = b_v(&spec->states[0], 0.5);
+        r->rot[0] = dunham_column(&spec->states[0], 1, 0.5);
         r->nrot = 1;
         if (spec->nvib == 0)
             r->nvib = 1;
@@ -84,7 +73,7 @@ static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
             vg[k++] = (double)spec->vib_deg[i];
         }
     } else if (r->nvib == 1) {
-        vt[0] = MOLQ_C2_CM_K * (vib_term(x, 1.5) - vib_term(x, 0.5));
+        vt[0] = MOLQ_C2_CM_K * (dunham_column(x, 0, 1.5) - dunham_column(x, 0, 0.5));
         vg[0] = 1.0;
     }
     if (spec->nel > 0) {
@@ -96,8 +85,8 @@ static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
         molq_rovib_state st[MOLQ_MAX_STATES];
         molq_spec_rovib_states(spec, st);
         for (i = 0; i < spec->nstates; i++) {
-            et[i] = MOLQ_C2_CM_K * (st[i].te + vib_term(&spec->states[i], 0.5) -
-                                    vib_term(x, 0.5));
+            et[i] = MOLQ_C2_CM_K * (st[i].te + dunham_column(&spec->states[i], 0, 0.5) -
+                                    dunham_column(x, 0, 0.5));
             eg[i] = st[i].g * spec->sigma * 0.5 * (st[i].w_even + st[i].w_odd);
         }
     } else {
