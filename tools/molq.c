@@ -951,18 +951,6 @@ static molq_status spin_value(const molq_species *sp, double T, int per_mass,
     return st;
 }
 
-/* 1 if the species has a diatomic level sum (a rovibronic mode). */
-static int has_rovibronic(const molq_species *sp)
-{
-    size_t m, n = molq_species_mode_count(sp);
-    molq_mode_kind kind;
-    for (m = 0; m < n; m++)
-        if (molq_species_mode_kind(sp, m, &kind) == MOLQ_OK &&
-            kind == MOLQ_MODE_ROVIBRONIC)
-            return 1;
-    return 0;
-}
-
 static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
 {
     size_t i, t;
@@ -970,8 +958,12 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
     const char *unit = o->per_mass ? "J/kg" : "J/mol";
     molq_status st;
 
+    /* The library answers MOLQ_EARG for species it has no spin isomers
+     * for; say why, before any output. */
     for (i = 0; i < nsp; i++) {
-        if (molq_species_model(sp[i]) != MOLQ_MODEL_LEVELS) {
+        st = spin_value(sp[i], Tmin, o->per_mass, &v);
+        if (st == MOLQ_EARG &&
+            molq_species_model(sp[i]) != MOLQ_MODEL_LEVELS) {
             fprintf(stderr, "molq: species '%s' uses model '%s'; the spin "
                     "conversion enthalpy needs model 'levels' (diatomics "
                     "described by diatomic_states; --model levels switches "
@@ -980,13 +972,13 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
                     model_name(molq_species_model(sp[i])));
             return EXIT_DATA;
         }
-        if (!has_rovibronic(sp[i])) {
-            fprintf(stderr, "molq: species '%s' has no diatomic level sum "
-                    "(no diatomic_states); spin isomers are modelled for "
-                    "diatomics only\n", molq_species_name(sp[i]));
+        if (st == MOLQ_EARG) {
+            fprintf(stderr, "molq: species '%s': no spin conversion "
+                    "enthalpy; the library gives it for diatomic level sums "
+                    "(diatomic_states) only\n", molq_species_name(sp[i]));
             return EXIT_DATA;
         }
-        if ((st = spin_value(sp[i], Tmin, o->per_mass, &v)) != MOLQ_OK) {
+        if (st != MOLQ_OK) {
             eval_error(sp[i], Tmin, 0.0, st);
             return EXIT_DATA;
         }

@@ -648,12 +648,12 @@ BAD_ARGS = [
     (["table", "N2", "--data", str(DATA / "no_such_file.json")], 1,
      ["no_such_file.json", "cannot open"]),
     (["table", "N2", "--data", str(DATA)], 1, [str(DATA), "read"]),
-    # Evaluation error: the corrected asymmetric top of H2O is valid only
-    # from T = theta_A = hc A/k (about 40 K) up.
-    (["table", "H2O", "--T", "30"], 1,
+    # Evaluation error: the corrected asymmetric top of H2O (rigid-rotor
+    # model) is valid only from T = theta_A = hc A/k (about 40 K) up.
+    (["table", "H2O", "--T", "30", "--model", "rrho"], 1,
      ["'H2O'", "T = 30", "temperature outside the validity range"]),
-    (["modes", "N2", "H2O", "--T", "300,20", "--format", "json"], 1,
-     ["'H2O'", "T = 20", "validity range"]),
+    (["modes", "N2", "H2O", "--T", "300,20", "--format", "json", "--model",
+      "rrho"], 1, ["'H2O'", "T = 20", "validity range"]),
     # Models.
     (["table", "N2", "--model", "harmonic"], 2,
      ["--model", "unknown model 'harmonic'", "rrho or levels"]),
@@ -681,10 +681,12 @@ BAD_ARGS = [
     # message names the missing field.
     (["table", "Ar", "--model", "levels"], 1,
      ["'Ar'", "model 'levels'", "diatomic_states"]),
-    (["table", "N2", "CO2", "--compare", "rrho,levels"], 1,
-     ["'CO2'", "model 'levels'", "diatomic_states"]),
-    (["modes", "H2O", "--model", "levels"], 1, ["'H2O'", "diatomic_states"]),
-    (["spin", "CO2"], 1, ["'CO2'", "model 'rrho'", "levels"]),
+    (["table", "N2", "Ar", "--compare", "rrho,levels"], 1,
+     ["'Ar'", "model 'levels'", "diatomic_states"]),
+    (["modes", "O", "--model", "levels"], 1, ["'O'", "diatomic_states"]),
+    (["spin", "Ar"], 1, ["'Ar'", "model 'rrho'", "levels"]),
+    (["spin", "demo-diatomic", "--data", str(DEMO)], 1,
+     ["'demo-diatomic'", "model 'rrho'", "levels"]),
     # Levels model without a diatomic level sum (hindered rotor).
     (["spin", "C2H6"], 1, ["'C2H6'", "diatomic"]),
     (["spin", "H2", "--model", "rrho"], 1, ["'H2'", "model 'rrho'"]),
@@ -918,17 +920,20 @@ class BuiltinFormats(unittest.TestCase):
         self.assertEqual(info["demo-linear"]["set"], "file")
         self.assertEqual(info["N2"]["set"], "built-in")
         # Each species' model: the file's demo species have none (rrho);
-        # the built-in diatomics default to the level sum.
+        # atoms have only rigid-rotor data; the built-in diatomics default
+        # to the level sum; every model shown is one the tool knows.
         self.assertEqual(info["demo-linear"]["model"], "rrho")
-        self.assertEqual({n: info[n]["model"] for n in BUILTIN},
+        self.assertEqual({n: info[n]["model"] for n in
+                          ("Ar", "O", "H2", "N2", "O2", "CO")},
                          {"Ar": "rrho", "O": "rrho", "H2": "levels",
-                          "N2": "levels", "O2": "levels", "CO": "levels",
-                          "CO2": "rrho", "H2O": "rrho", "C2H6": "levels"})
+                          "N2": "levels", "O2": "levels", "CO": "levels"})
+        for n in BUILTIN:
+            self.assertIn(info[n]["model"], MODELS)
         text = run_ok(self, "list")
         self.assertEqual(text.splitlines()[0].split()[:4],
                          ["name", "formula", "structure", "model"])
         self.assertRegex(text, r"(?m)^N2\s+N2\s+linear\s+levels\s")
-        self.assertRegex(text, r"(?m)^CO2\s+CO2\s+linear\s+rrho\s")
+        self.assertRegex(text, r"(?m)^Ar\s+Ar\s+atom\s+rrho\s")
         self.assertIn("JANAF", info["CO2"]["source"])
         # csv: the quoted source with commas survives.
         rows = list(csv.DictReader(io.StringIO(
@@ -1007,30 +1012,34 @@ class ModelChoice(unittest.TestCase):
         self.assertAlmostEqual(rrho["cp"], cp_janaf, delta=0.5)
 
     def test_default_is_own_model(self):
-        # Asking for the model a species already has changes nothing, to
-        # the last printed digit; CO2 has only rigid-rotor data.
-        for name, model in (("N2", "levels"), ("H2", "levels"),
-                            ("CO2", "rrho"), ("Ar", "rrho")):
+        # Asking for the model a species already has (as `molq list`
+        # shows it) changes nothing, to the last printed digit.
+        doc = json.loads(run_ok(self, "list", "--data", DEMO, "--format",
+                                "json"))
+        own_model = {s["name"]: s["model"] for s in doc["species"]}
+        for name in BUILTIN + ["demo-bent"]:
             with self.subTest(name=name):
-                a = run_ok(self, "table", name, "--format", "csv")
-                b = run_ok(self, "table", name, "--model", model, "--format",
+                a = run_ok(self, "table", name, "--data", DEMO, "--format",
                            "csv")
+                b = run_ok(self, "table", name, "--data", DEMO, "--model",
+                           own_model[name], "--format", "csv")
                 self.assertEqual(a, b)
-        # A mixed list: --model rrho switches the diatomics only.
-        mixed = run_ok(self, "table", "N2", "CO2", "--model", "rrho",
+        # A mixed list: --model rrho switches N2 and leaves the atom (which
+        # has only rigid-rotor data) as it was.
+        mixed = run_ok(self, "table", "N2", "Ar", "--model", "rrho",
                        "--T", "1500", "--format", "csv")
-        own = run_ok(self, "table", "N2", "CO2", "--T", "1500", "--format",
+        own = run_ok(self, "table", "N2", "Ar", "--T", "1500", "--format",
                      "csv")
         self.assertEqual(mixed.splitlines()[0], CSV_HEADER)
         self.assertNotEqual(mixed.splitlines()[1], own.splitlines()[1])
         self.assertEqual(mixed.splitlines()[2], own.splitlines()[2])
 
     def test_json_and_text_name_the_model(self):
-        doc = json.loads(run_ok(self, "table", "N2", "CO2", "--T", "500",
+        doc = json.loads(run_ok(self, "table", "N2", "Ar", "--T", "500",
                                 "--format", "json", "--model", "rrho"))
         self.assertEqual([s["model"] for s in doc["species"]],
                          ["rrho", "rrho"])
-        doc = json.loads(run_ok(self, "table", "N2", "CO2", "--T", "500",
+        doc = json.loads(run_ok(self, "table", "N2", "Ar", "--T", "500",
                                 "--format", "json"))
         self.assertEqual([s["model"] for s in doc["species"]],
                          ["levels", "rrho"])

@@ -666,11 +666,11 @@ class Species:
                                     "spin conversion enthalpy needs model "
                                     "'levels' (see with_model)"
                                     % (self.name, model))
-                if status == EARG and "rovibronic" not in self.mode_kinds:
-                    raise MolqError(status, "species %r has no diatomic "
-                                    "level sum (no diatomic_states); spin "
-                                    "isomers are modelled for diatomics only"
-                                    % (self.name,))
+                if status == EARG:
+                    raise MolqError(status, "species %r: no spin conversion "
+                                    "enthalpy; the library gives it for "
+                                    "diatomic level sums (diatomic_states) "
+                                    "only" % (self.name,))
                 _fail(status, None, "species %r: spin conversion at T=%r K"
                       % (self.name, t))
             return out.value

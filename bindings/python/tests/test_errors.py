@@ -158,7 +158,9 @@ class BadStates(unittest.TestCase):
             self.n2.eval_per_mass("h", [300.0, math.nan])
 
     def test_below_model_range(self):
-        h2o = molq.Database.builtin()["H2O"]
+        # The corrected asymmetric top of the rigid-rotor model is valid
+        # from T = theta_A (molq.h).
+        h2o = molq.Database.builtin()["H2O"].with_model("rrho")
         self.assertGreater(h2o.t_min, 0.0)
         with self.assertRaises(molq.MolqError) as cm:
             h2o.cp(0.5 * h2o.t_min)
