@@ -17,7 +17,7 @@ OUT = os.path.join(os.path.dirname(os.path.abspath(__file__)), "corpus",
 
 # Operation codes (low nibble of the code byte in spec_api.c).
 FORMULA, SOURCE, MASS, STRUCTURE, SIGMA, ROT, ROTOR = 0, 1, 2, 3, 4, 5, 6
-VIB, LEVEL, RUN, DFH, STOP = 7, 9, 11, 12, 13
+VIB, LEVEL, RUN, DFH, STOP, LEVELS_OP, POLY_OP = 7, 9, 11, 12, 13, 14, 15
 ATOM, LINEAR, NONLINEAR = 0, 1, 2
 
 
@@ -80,6 +80,30 @@ class Seed:
         return self.op(RUN | (0x10 if vibrations else 0),
                        bytes([n >> 8, n & 0xFF]), d(base))
 
+    # Level-sum setters (levels_op / polyatomic_op in spec_api.c).
+    def model(self, levels):
+        return self.op(LEVELS_OP | (0 << 4), bytes([1 if levels else 0]))
+
+    def diatomic_linear_sigma2(self):
+        return self.op(LEVELS_OP | (7 << 4))
+
+    def plausible_state(self, g_minus_1, scale_byte, te_byte=None):
+        extra = bytes([te_byte]) if te_byte is not None else b""
+        return self.op(LEVELS_OP | (6 << 4), extra, bytes([g_minus_1, scale_byte]))
+
+    def d0_product(self, a, b):
+        """D0 = 100 (1 + a)(1 + b) cm^-1."""
+        return self.op(LEVELS_OP | (4 << 4), bytes([a, b]))
+
+    def frozen(self, x):
+        return self.op(LEVELS_OP | (5 << 4), d(x))
+
+    def plausible_torsion(self, scale_byte):
+        return self.op(POLY_OP | (7 << 4), bytes([scale_byte]))
+
+    def anharmonicity(self, i, j, x):
+        return self.op(POLY_OP | (3 << 4), bytes([i, j]), d(x))
+
     def dfh(self, x):
         return self.op(DFH, d(x))
 
@@ -133,6 +157,25 @@ def seeds():
                         .states(100, (700.0, 1e5)))
     yield "vib_limit", (Seed("over").mass(0.5).structure(LINEAR).rot(0.1)
                         .run(True, 1001, 100.0).states(100, (300.0, 1e5)))
+    yield "levels_diatomic", (Seed("N2-levels").mass(0.0280134)
+                              .diatomic_linear_sigma2().plausible_state(0, 28)
+                              .plausible_state(2, 20, 40).d0_product(9, 9)
+                              .states(200, (298.15, 1e5), (5.0, 1e5),
+                                      (3000.0, 1e5)))
+    yield "levels_frozen", (Seed("H2-frozen").mass(0.00201588)
+                            .diatomic_linear_sigma2().plausible_state(0, 60)
+                            .d0_product(19, 19).frozen(0.75)
+                            .states(200, (20.0, 1e5), (300.0, 1e5)))
+    yield "torsion", (Seed("demo-top-rotor").mass(0.030).structure(NONLINEAR)
+                      .sigma(6).rot(2.68, 0.66, 0.66).vib(2900, 3).vib(1400, 2)
+                      .vib(990).model(True).plausible_torsion(16)
+                      .d0_product(99, 99)
+                      .states(200, (300.0, 1e5), (1500.0, 1e5)))
+    yield "anharmonic", (Seed("demo-bent").mass(0.018).structure(NONLINEAR)
+                         .sigma(2).rot(27.9, 14.5, 9.3).vib(3657).vib(1595)
+                         .vib(3756).model(True).anharmonicity(0, 0, -43.0)
+                         .anharmonicity(1, 1, -17.0).d0_product(199, 199)
+                         .states(200, (300.0, 1e5), (2000.0, 1e5)))
     # Descriptions that must be refused or evaluations that must fail.
     yield "sigma_zero", (Seed("bad-sigma").mass(0.03).structure(LINEAR)
                          .sigma(0).rot(1.0).states(100, (300.0, 1e5)))
