@@ -255,6 +255,46 @@ static const struct bad {
     {"{\"species\": [{\"name\": \"J\", \"molar_mass\": 4, \"structure\":"
      " \"linear\", \"rotational_constants\": [1], \"rotor\": \"wobbly\"}]}",
      MOLQ_EVALUE, {"'J'", "'rotor'"}},
+    /* level-sum models: unphysical constants */
+    {"{\"species\": [{\"name\": \"K\", \"molar_mass\": 4, \"structure\":"
+     " \"linear\", \"dissociation_energy\": -5, \"diatomic_states\":"
+     " [{\"Te\": 0, \"we\": 2000, \"Be\": 2}]}]}",
+     MOLQ_EVALUE, {"'K'", "'dissociation_energy'"}},
+    {"{\"species\": [{\"name\": \"K\", \"molar_mass\": 4, \"structure\":"
+     " \"linear\", \"diatomic_states\": [{\"Te\": 0, \"we\": 2000,"
+     " \"Be\": 2}]}]}",
+     MOLQ_EKEY, {"'K'", "'dissociation_energy'"}},
+    {"{\"species\": [{\"name\": \"K\", \"molar_mass\": 4, \"structure\":"
+     " \"linear\", \"dissociation_energy\": 1e7, \"diatomic_states\":"
+     " [{\"Te\": 0, \"we\": 20, \"Be\": 0.001}]}]}",
+     MOLQ_ELIMIT, {"'K'", "turn over"}},
+    {"{\"species\": [{\"name\": \"K\", \"molar_mass\": 4, \"structure\":"
+     " \"linear\", \"dissociation_energy\": 40000, \"diatomic_states\":"
+     " [{\"Te\": 0, \"we\": -2000, \"Be\": 2}]}]}",
+     MOLQ_EVALUE, {"'K'", "diatomic_states[0].we"}},
+    {"{\"species\": [{\"name\": \"K\", \"molar_mass\": 4, \"structure\":"
+     " \"linear\", \"dissociation_energy\": 40000, \"diatomic_states\":"
+     " [{\"Te\": 0, \"we\": 2000, \"Be\": 2, \"dunham\": [[0, 2]]}]}]}",
+     MOLQ_EKEY, {"'K'", "diatomic_states[0].dunham"}},
+    {"{\"species\": [{\"name\": \"K\", \"molar_mass\": 4, \"structure\":"
+     " \"linear\", \"dissociation_energy\": 40000, \"spin_isomers\":"
+     " \"frozen\", \"odd_fraction\": 0.5, \"diatomic_states\":"
+     " [{\"Te\": 0, \"we\": 2000, \"Be\": 2}]}]}",
+     MOLQ_EVALUE, {"'K'", "'spin_isomers'"}},
+    {"{\"species\": [{\"name\": \"L\", \"molar_mass\": 30, \"structure\":"
+     " \"nonlinear\", \"rotational_constants\": [3, 2, 1], \"torsions\":"
+     " [{\"barrier\": [{\"n\": 3, \"V\": 1000}]}]}]}",
+     MOLQ_EKEY, {"'L'", "torsions[0].rotational_constant"}},
+    {"{\"species\": [{\"name\": \"L\", \"molar_mass\": 30, \"structure\":"
+     " \"nonlinear\", \"rotational_constants\": [3, 2, 1], \"vibrations\":"
+     " [{\"wavenumber\": 300}], \"dissociation_energy\": 30000,"
+     " \"anharmonicity\": {\"x\": [[0, 4, -3]]}}]}",
+     MOLQ_EVALUE, {"'L'", "anharmonicity.x"}},
+    {"{\"species\": [{\"name\": \"L\", \"molar_mass\": 30, \"structure\":"
+     " \"nonlinear\", \"rotational_constants\": [3, 2, 1], \"vibrations\":"
+     " [{\"wavenumber\": 300}], \"dissociation_energy\": 30000,"
+     " \"anharmonicity\": {\"g\": [[0, -1]]}}]}",
+     MOLQ_EVALUE, {"'L'", "doubly degenerate"}},
 };
 
 START_TEST(bad_input_messages)

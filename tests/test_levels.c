@@ -221,8 +221,20 @@ START_TEST(spin_isomers)
     /* Nothing left to convert at high T. */
     ck_assert_int_eq(molq_eval_spin_conversion(n, 2000.0, &v), MOLQ_OK);
     ck_assert_msg(fabs(v) < 1e-3, "dh(2000 K) = %g", v);
-    /* Not a level-sum species: no conversion to speak of. */
+    /* A single nuclear-spin modification converts nothing, at any T:
+     * heteronuclear CO, spin-0 16O2, a polyatomic without a diatomic sum. */
+    ck_assert_int_eq(molq_eval_spin_conversion(tu_species("CO"), 2.0, &v),
+                     MOLQ_OK);
+    ck_assert_double_eq(v, 0.0);
+    ck_assert_int_eq(molq_eval_spin_conversion(tu_species("O2"), 3000.0, &v),
+                     MOLQ_OK);
+    ck_assert_double_eq(v, 0.0);
     ck_assert_int_eq(molq_eval_spin_conversion(tu_species("CO2"), 20.0, &v),
+                     MOLQ_OK);
+    ck_assert_double_eq(v, 0.0);
+    /* The rrho model has no spin isomers to speak of: an argument error. */
+    ck_assert_int_eq(molq_eval_spin_conversion(
+                         tu_species_model("CO2", MOLQ_MODEL_RRHO), 20.0, &v),
                      MOLQ_EARG);
     molq_db_free(db);
 }

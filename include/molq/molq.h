@@ -220,13 +220,26 @@ typedef enum molq_rotor {
  *   spin statistics (molq_spec_set_rotational_weights), in equilibrium or
  *   as a frozen even/odd mixture.  The method of the published reference
  *   tables for diatomics; costs one exp per populated level. */
-/* (models continued) Both level-based sums are evaluated through a table in
- * ln T built with the species (exact at its nodes, consistent derivatives,
- * about 1e-13 relative in cp) so they cost about as much as RRHO. */
+/* (models continued) Level-based sums are evaluated through a table in ln T
+ * built with the species (exact at its nodes, consistent derivatives, about
+ * 1e-11 relative in cp and 5e-9 in dcp/dT) so they cost about as much as
+ * RRHO. */
 typedef enum molq_model {
     MOLQ_MODEL_RRHO = 0,
     MOLQ_MODEL_LEVELS = 1
 } molq_model;
+
+/* @return the number of models (molq_model values 0 .. count-1).  Grows
+ *         with new versions.  Added in 0.1.0. */
+MOLQ_API size_t molq_model_count(void);
+
+/* @return the short name of a model ("rrho", "levels"), static, or NULL for
+ *         an unknown value.  Added in 0.1.0. */
+MOLQ_API const char *molq_model_name(molq_model model);
+
+/* Look a model up by its short name.  @return MOLQ_OK, MOLQ_EARG (NULL),
+ *         MOLQ_ENOTFOUND.  Added in 0.1.0. */
+MOLQ_API molq_status molq_model_from_name(const char *name, molq_model *out);
 
 /* A mutable description of one species, filled field by field and turned
  * into an immutable molq_species by molq_species_create.  Setters store
@@ -348,10 +361,12 @@ MOLQ_API molq_status molq_spec_set_rotational_weights(molq_spec *spec,
 MOLQ_API molq_status molq_spec_set_dissociation_energy(molq_spec *spec,
                                                        double d0_cm1);
 
-/* Treat even- and odd-J molecules as a frozen mixture (no conversion on
- * the time scale of interest, e.g. normal hydrogen, odd_fraction = 0.75)
- * instead of the default equilibrium.  odd_fraction in (0, 1) is the mole
- * fraction of molecules in odd-J levels.  @return MOLQ_OK or MOLQ_EARG.
+/* Treat the two nuclear-spin modifications (ground state: even- and odd-J
+ * molecules) as a frozen mixture (no conversion on the time scale of
+ * interest, e.g. normal hydrogen, odd_fraction = 0.75) instead of the
+ * default equilibrium.  odd_fraction in (0, 1) is the mole fraction of the
+ * ground state's odd-J modification; molq_species_create refuses it for a
+ * species with a single modification.  @return MOLQ_OK or MOLQ_EARG.
  * Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_spin_isomers_frozen(molq_spec *spec,
                                                        double odd_fraction);
@@ -520,15 +535,17 @@ MOLQ_API molq_status molq_eval_per_mass(const molq_species *species,
                                         double T, double p,
                                         molq_property prop, double *out);
 
-/* Ortho-para conversion enthalpy at T, J/mol: h of the frozen even/odd
- * mixture minus h in spin equilibrium, i.e. the heat released per mole when
- * the mixture relaxes to equilibrium at T (positive where conversion is
- * exothermic, e.g. normal hydrogen at 20 K).  The frozen mixture is the
- * species' own (molq_spec_set_spin_isomers_frozen) or, for an equilibrium
- * species, the high-temperature one (odd fraction w_odd/(w_even + w_odd) of
- * the ground state).  0 for species without distinct even/odd weights.
+/* Ortho-para conversion enthalpy at T, J/mol: h of the frozen mixture of
+ * the two nuclear-spin modifications minus h in spin equilibrium, i.e. the
+ * heat released per mole when the mixture relaxes to equilibrium at T
+ * (positive where conversion is exothermic, e.g. normal hydrogen at 20 K).
+ * The frozen mixture is the species' own (molq_spec_set_spin_isomers_frozen)
+ * or, for an equilibrium species, the high-temperature one (odd fraction
+ * w_odd/(w_even + w_odd) of the ground state).  Exactly 0 for a species
+ * with a single modification (heteronuclear, nuclei of spin 0 such as 16O2,
+ * or no diatomic level sum).
  * @return MOLQ_OK, MOLQ_EARG (NULL, or a species not using
- * MOLQ_MODEL_LEVELS), MOLQ_EDOMAIN.  Added in 0.1.0. */
+ * MOLQ_MODEL_LEVELS), MOLQ_EDOMAIN, MOLQ_ERANGE.  Added in 0.1.0. */
 MOLQ_API molq_status molq_eval_spin_conversion(const molq_species *species,
                                                double T, double *out);
 

@@ -116,11 +116,14 @@ molq_status molq_eval_spin_conversion(const molq_species *sp, double T,
         return MOLQ_EARG;
     if ((st = check_state(sp, T, MOLQ_P_STANDARD)) != MOLQ_OK)
         return st;
+    if (sp->model != MOLQ_MODEL_LEVELS)
+        return MOLQ_EARG;
     for (i = 0; i < sp->nmodes; i++)
         if (sp->modes[i].kind == MOLQ_MODE_ROVIBRONIC) {
             double v = molq_thermo_spin_conversion(sp, i, T);
             return check_finite(&v, 1) == MOLQ_OK ? (*out = v, MOLQ_OK)
                                                   : MOLQ_ERANGE;
         }
-    return MOLQ_EARG;
+    *out = 0.0; /* no spin isomers modelled */
+    return MOLQ_OK;
 }

@@ -97,3 +97,30 @@ const char *molq_mode_kind_name(molq_mode_kind kind)
         return NULL;
     return mode_names[kind];
 }
+
+static const char *const model_names[] = {"rrho", "levels"};
+#define NMODELS (sizeof model_names / sizeof model_names[0])
+
+size_t molq_model_count(void)
+{
+    return NMODELS;
+}
+
+const char *molq_model_name(molq_model model)
+{
+    return ((int)model < 0 || (size_t)model >= NMODELS) ? NULL
+                                                        : model_names[model];
+}
+
+molq_status molq_model_from_name(const char *name, molq_model *out)
+{
+    size_t i;
+    if (name == NULL || out == NULL)
+        return MOLQ_EARG;
+    for (i = 0; i < NMODELS; i++)
+        if (strcmp(model_names[i], name) == 0) {
+            *out = (molq_model)i;
+            return MOLQ_OK;
+        }
+    return MOLQ_ENOTFOUND;
+}

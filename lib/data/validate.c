@@ -86,6 +86,11 @@ static molq_status validate_states(const molq_spec *s, char *err,
     if (!ground || s->states[0].te != 0.0)
         FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[0].Te': the "
              "first state is the ground state, Te = 0", nm);
+    if (s->spin_frozen && !molq_rovib_has_isomers(st))
+        FAIL(MOLQ_EVALUE, "species '%s': field 'spin_isomers': \"frozen\" "
+             "needs two nuclear-spin modifications, i.e. ground-state "
+             "rotational_weights that are both > 0 and differ (as for H2 or "
+             "N2); this species has only one", nm);
     count = molq_rovib_count(st, s->nstates, s->d0, MOLQ_MAX_ROVIB_LEVELS,
                              &empty);
     if (count == (size_t)-1)

@@ -45,14 +45,21 @@ typedef struct molq_rovib_state {
     double y[MOLQ_DUNHAM_K][MOLQ_DUNHAM_L];
 } molq_rovib_state;
 
-/* Bound levels of a diatomic, sorted by energy, split by J parity. */
+/* Does the ground state (st[0]) have two nuclear-spin modifications
+ * (both parity weights > 0 and different, as for H2 or 14N2)?  Otherwise
+ * (heteronuclear, or I = 0 like 16O2) there are no spin isomers. */
+int molq_rovib_has_isomers(const molq_rovib_state *st);
+
+/* Bound levels of a diatomic, sorted by energy, split by nuclear-spin
+ * modification: [0] that of the ground state's even J, [1] the other. */
 typedef struct molq_rovib_params {
-    size_t n[2];          /* [0] even J, [1] odd J */
+    size_t n[2];          /* [0] even-J modification, [1] odd-J one */
     const double *theta[2]; /* energies above the lowest level, K */
     const double *w[2];     /* g * weight * (2J + 1) */
     int frozen;             /* frozen even/odd mixture */
     double x_odd;           /* odd mole fraction of the frozen mixture */
     double x_odd_normal;    /* high-temperature odd fraction */
+    int isomers;            /* 1 if there are two modifications */
     molq_lnq_table table;   /* interpolation of the exact sum */
 } molq_rovib_params;
 

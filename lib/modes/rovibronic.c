@@ -9,8 +9,10 @@
  * on the conventional scale.  The levels are generated once, sorted, and
  * summed at each T until exp(-E/kT) falls below exp(-CUTOFF).
  *
- * Spin isomers: in equilibrium one sum over all levels; frozen, the even-
- * and odd-J molecules are a mixture of fixed mole fractions x_p, each with
+ * Spin isomers: in equilibrium one sum over all levels; frozen, the two
+ * nuclear-spin modifications (for the ground state, even and odd J; an
+ * excited state whose weights are the ground state's swapped belongs the
+ * other way round) are a mixture of fixed mole fractions x_p, each with
  * its own sum Q_p (energies from the common zero), combined as
  *   ln q = sum x_p (ln Q_p - ln x_p),  k_n = sum x_p k_n,p  (n = 1, 2, 3)
  * which gives the mixture's U, Cv and S including its ideal mixing term.
@@ -34,6 +36,20 @@
 #define TABLE_STEP 0.03  /* in ln T; see tests/test_table.c */
 #define MAX_J 1000000u   /* guard against ladders that never turn over */
 #define MAX_V 100000u
+
+int molq_rovib_has_isomers(const molq_rovib_state *st)
+{
+    return st[0].w_even > 0.0 && st[0].w_odd > 0.0 &&
+           st[0].w_even != st[0].w_odd;
+}
+
+/* 1 if this state's even J belong to the ground state's odd-J
+ * modification (its weights are the ground state's swapped). */
+static int flipped(const molq_rovib_state *st, size_t i)
+{
+    return i > 0 && molq_rovib_has_isomers(st) &&
+           st[i].w_even == st[0].w_odd && st[i].w_odd == st[0].w_even;
+}
 
 static double term(const molq_rovib_state *s, double vh, double x)
 {
@@ -66,6 +82,7 @@ static int walk(const molq_rovib_state *st, size_t n, double d0, sink *out,
         const molq_rovib_state *s = &st[i];
         double gprev = -HUGE_VAL;
         size_t before = out->count;
+        unsigned flip = (unsigned)flipped(st, i);
         unsigned v;
         for (v = 0; v < MAX_V; v++) {
             double g = term(s, v + 0.5, 0.0) - e0, eprev = -HUGE_VAL;
@@ -76,8 +93,8 @@ static int walk(const molq_rovib_state *st, size_t n, double d0, sink *out,
             for (J = 0; J < MAX_J; J++) {
                 double x = (double)J * (J + 1.0);
                 double e = term(s, v + 0.5, x) - e0;
-                int par = (int)(J & 1u);
-                double w = par ? s->w_odd : s->w_even;
+                double w = (J & 1u) ? s->w_odd : s->w_even;
+                int par = (int)((J & 1u) ^ flip);
                 if (!(e < d0) || e <= eprev)
                     break;
                 eprev = e;
@@ -188,6 +205,8 @@ double molq_rovibronic_conversion(const molq_mode *m, double T)
 {
     const molq_rovib_params *r = &m->u.rv;
     molq_cumulants fz, eq;
+    if (!r->isomers)
+        return 0.0; /* one modification: nothing to convert */
     frozen_sum(r, r->frozen ? r->x_odd : r->x_odd_normal, T, &fz);
     equilibrium_sum(r, T, &eq);
     return fz.k1 - eq.k1;
@@ -244,6 +263,7 @@ int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
     m->u.rv.frozen = frozen;
     m->u.rv.x_odd = x_odd;
     m->u.rv.x_odd_normal = st[0].w_odd / (st[0].w_even + st[0].w_odd);
+    m->u.rv.isomers = molq_rovib_has_isomers(st);
     if (molq_lnq_table_build(&m->u.rv.table, TABLE_T_LO, TABLE_T_HI,
                              TABLE_STEP, exact_sum, &m->u.rv) != 0) {
         free(block);

@@ -350,13 +350,11 @@ class SpinConversion(unittest.TestCase):
             self.assertEqual(cm.exception.status, molq.EARG)
             self.assertIn("model 'levels'", cm.exception.message)
             self.assertIn(sp.name, cm.exception.message)
-        # Level-based polyatomics have no diatomic even/odd-J level sum.
-        for name in ("C2H6", "CO2"):
-            if name in db and db[name].model == "levels":
-                with self.assertRaises(molq.MolqError) as cm:
-                    db[name].spin_conversion(20.0)
-                self.assertEqual(cm.exception.status, molq.EARG)
-                self.assertIn("diatomic", cm.exception.message)
+        # Level-based species with a single nuclear-spin modification
+        # (polyatomics here, heteronuclear or spin-0 diatomics) convert
+        # nothing: exactly 0 (molq.h).
+        for name in ("C2H6", "CO2", "CO", "O2"):
+            self.assertEqual(db[name].spin_conversion(20.0), 0.0)
         for T in (0.0, -5.0, math.nan, math.inf):
             with self.assertRaises(molq.MolqError) as cm:
                 self.h2.spin_conversion(T)
