@@ -86,7 +86,12 @@ molq_status molq_eval_per_mass(const molq_species *sp, double T, double p,
     molq_status st = molq_eval(sp, T, p, prop, &v);
     if (st != MOLQ_OK)
         return st;
-    *out = (prop == MOLQ_LNQ || prop == MOLQ_DGRT_DT) ? v : v / sp->molar_mass;
+    if (prop != MOLQ_LNQ && prop != MOLQ_DGRT_DT) {
+        v /= sp->molar_mass;
+        if ((st = check_finite(&v, 1)) != MOLQ_OK)
+            return st; /* an absurdly small molar mass */
+    }
+    *out = v;
     return MOLQ_OK;
 }
 

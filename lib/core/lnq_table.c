@@ -10,6 +10,10 @@ int molq_lnq_table_build(molq_lnq_table *t, double T_lo, double T_hi,
     t->u0 = log(T_lo);
     t->h = h;
     t->inv_h = 1.0 / h;
+    t->n = 0;
+    t->node = NULL;
+    if (!(T_hi > T_lo) || !(h > 0.0))
+        return 0; /* empty table: evaluation falls back to the exact sum */
     t->n = (size_t)ceil((log(T_hi) - t->u0) / h) + 1;
     t->node = malloc(4 * t->n * sizeof *t->node);
     if (t->node == NULL) {
@@ -35,7 +39,7 @@ int molq_lnq_table_eval(const molq_lnq_table *t, double T,
     double P, P1, P2, P3, f1, f2, f3;
     const double *p, *q;
     size_t i;
-    if (!(x >= 0.0) || x >= (double)(t->n - 1))
+    if (t->n < 2 || !(x >= 0.0) || x >= (double)(t->n - 1))
         return -1;
     i = (size_t)x;
     s = x - (double)i;

@@ -27,8 +27,9 @@ typedef struct molq_lnq_table {
 
 typedef void (*molq_exact_fn)(const void *ctx, double T, molq_cumulants *out);
 
-/* Sample exact(ctx, T) on [T_lo, T_hi] with spacing h in ln T.  Returns 0,
- * or -1 on allocation failure (the table is then empty). */
+/* Sample exact(ctx, T) on [T_lo, T_hi] with spacing h in ln T.  Returns 0
+ * (an empty range gives an empty table, whose evaluation always reports
+ * -1), or -1 on allocation failure (the table is then empty). */
 int molq_lnq_table_build(molq_lnq_table *t, double T_lo, double T_hi,
                          double h, molq_exact_fn exact, const void *ctx);
 

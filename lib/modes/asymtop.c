@@ -28,6 +28,8 @@
 #define HANDOVER_LO 30.0 /* x theta_A */
 #define HANDOVER_HI 60.0
 #define KEEP 40.0        /* levels up to KEEP kT at T2 (e^-40 = 4e-18) */
+#define MAX_J 150        /* larger tops (tiny C against A) use the corrected
+                            rotor instead: see molq_asymtop_fits */
 
 typedef struct top_sink {
     double *theta, *w;
@@ -76,13 +78,25 @@ static void block(double A, double B, double C, int J, int kpar, int sign,
     }
 }
 
-/* All levels below emax (cm^-1): J grows until C J(J+1) passes emax. */
+static double level_cap(const double *abc)
+{
+    return KEEP * HANDOVER_HI * abc[0]; /* cm^-1: KEEP kT at T2 */
+}
+
+int molq_asymtop_fits(const double *abc)
+{
+    double jj = level_cap(abc) / abc[2]; /* J(J+1) needed */
+    return jj < (double)MAX_J * (MAX_J + 1.0);
+}
+
+/* All levels below emax (cm^-1): J grows until C J(J+1) passes emax
+ * (at most MAX_J, checked by molq_asymtop_fits). */
 static int levels(const double *abc, const double *w, double emax,
                   top_sink *out)
 {
     int J, jmax = 0;
     double *a, *ev;
-    while (abc[2] * jmax * (jmax + 1.0) <= emax)
+    while (jmax < MAX_J && abc[2] * jmax * (jmax + 1.0) <= emax)
         jmax++;
     a = malloc(((size_t)(jmax / 2 + 2) * (size_t)(jmax / 2 + 4)) *
                sizeof *a);
@@ -129,7 +143,7 @@ int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
 {
     struct molq_asymtop_params *t = &m->u.top;
     double theta_a = MOLQ_C2_CM_K * abc[0], t2 = HANDOVER_HI * theta_a;
-    double emax = KEEP * t2 / MOLQ_C2_CM_K, t_min;
+    double emax = level_cap(abc), t_min;
     top_sink count = {NULL, NULL, 0}, fill;
     molq_mode high;
     double *block_mem;

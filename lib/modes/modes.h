@@ -161,6 +161,11 @@ void molq_rotation_cumulants(const molq_rotation_params *r, double T,
 int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
                            const double *w);
 
+/* Does the exact top of these constants fit the level budget (J <= 150 up
+ * to the hand-over)?  Very prolate or heavy tops do not; they keep the
+ * corrected rotor. */
+int molq_asymtop_fits(const double *abc);
+
 /* Hindered internal rotor with constant F (cm^-1), potential terms and
  * internal symmetry number.  Returns 0, or -1 on allocation failure. */
 int molq_mode_torsion_init(molq_mode *m, double F,

@@ -119,7 +119,7 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     eg = et + r.nel;
     fill_rrho_arrays(spec, &r, levels, vt, vg, et, eg);
     if (levels && spec->structure == MOLQ_NONLINEAR &&
-        spec->rotor == MOLQ_ROTOR_CORRECTED) {
+        spec->rotor == MOLQ_ROTOR_CORRECTED && molq_asymtop_fits(r.rot)) {
         /* the exact top, with spin weights: valid at every T */
         double w[4], d = 1.0 / spec->sigma;
         int k;
@@ -195,7 +195,8 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
     }
     sp->molar_mass = molar_mass;
     sp->structure = (molq_structure)spec->structure;
-    sp->rotor = (molq_rotor)spec->rotor;
+    sp->rotor = spec->structure == MOLQ_ATOM ? MOLQ_ROTOR_CORRECTED
+                                             : (molq_rotor)spec->rotor;
     sp->model = model;
     sp->has_formation_enthalpy = spec->has_formation_enthalpy;
     sp->formation_enthalpy =
