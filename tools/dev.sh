@@ -2,9 +2,12 @@
 # tools/dev.sh -- set up, build, demo and test molq on a Debian 12 machine.
 #
 #   tools/dev.sh demo    install what is missing, build, run the kiln demo
-#   tools/dev.sh test    install what is missing, build, run the whole suite
-#                        (plain build, then again under AddressSanitizer and
-#                        UndefinedBehaviorSanitizer)
+#   tools/dev.sh test    install what is missing, build, run the whole suite:
+#                        plain build (with valgrind), the ABI check, again
+#                        under AddressSanitizer + UndefinedBehaviorSanitizer,
+#                        the threading test under ThreadSanitizer, the fuzz
+#                        regressions and a short run of every fuzz target
+#                        (FUZZ_SECONDS each, default 60)
 #   tools/dev.sh setup   only install the Debian packages that are missing
 #
 # Package installation uses apt-get (as root, or through sudo when present).
@@ -12,7 +15,7 @@ set -eu
 
 cd "$(dirname "$0")/.."
 
-PACKAGES="gcc meson ninja-build pkg-config libgsl-dev check libjansson-dev python3 valgrind abigail-tools"
+PACKAGES="gcc g++ meson ninja-build pkg-config libgsl-dev check libjansson-dev python3 valgrind abigail-tools clang libclang-rt-14-dev llvm-14"
 
 setup() {
     missing=""
@@ -59,6 +62,11 @@ test)
     build build-asan -Db_sanitize=address,undefined -Db_lundef=false
     ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
         meson test -C build-asan --print-errorlogs --no-suite python --no-suite valgrind
+    # Threads under ThreadSanitizer (shared handles, concurrent creation).
+    tests/hardening/tsan.sh build-tsan
+    # Fuzzing: every committed regression input, then a short run per target.
+    fuzz/regress.sh
+    fuzz/run.sh "${FUZZ_SECONDS:-60}"
     ;;
 *)
     echo "usage: tools/dev.sh demo|test|setup" >&2
