@@ -172,10 +172,15 @@ static void fz_check_state(const molq_species *sp, double T, double p,
                 kind == MOLQ_MODE_ROVIBRONIC)
                 rovib = 1;
         }
-        /* The library answers MOLQ_EARG for every species without a
-         * diatomic level sum, level-based polyatomics included (molq.h
-         * names only "a species not using MOLQ_MODEL_LEVELS"). */
-        if (molq_species_model(sp) != MOLQ_MODEL_LEVELS || !rovib) {
+        /* molq.h: MOLQ_EARG for a species not using MOLQ_MODEL_LEVELS, 0
+         * for one without distinct even/odd weights.  A level-based
+         * species without a diatomic level sum may answer either way
+         * (MOLQ_EARG or 0): the library has done both. */
+        if (molq_species_model(sp) == MOLQ_MODEL_LEVELS && !rovib &&
+            sc == MOLQ_OK) {
+            CHECK(x == 0.0, "spin conversion %.17g for '%s' without a "
+                  "diatomic level sum", x, nm_);
+        } else if (molq_species_model(sp) != MOLQ_MODEL_LEVELS || !rovib) {
             /* EARG; a bad T may be reported first (EDOMAIN, or ERANGE
              * below t_min) -- the library checks the state first. */
             int want = fz_expected_status(sp, T, 1e5);

@@ -48,6 +48,7 @@ typedef struct model {
     size_t nstates;
     /* Torsions and anharmonic vibration terms. */
     size_t ntors, nterms[8], nvterms;
+    int has_top_w;
 } model;
 
 static void model_reset(model *m, const char *name)
@@ -353,6 +354,7 @@ static void polyatomic_op(molq_spec *s, model *m, unsigned sub, fz *f)
         CHECK(molq_spec_set_top_weights(s, w[0], w[1], w[2], w[3]) ==
                   MOLQ_OK,
               "set_top_weights");
+        m->has_top_w = 1;
     }
 #endif
         break;
@@ -557,9 +559,14 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     {
         double T[6], P[6];
         int k, nstate = 0;
+        /* Default model as implemented (lib/data/spec.c): level sums when
+         * diatomic states, torsions, anharmonic terms or top weights are
+         * given (molq.h mentions only the diatomic states). */
         molq_model want = m.has_model ? (molq_model)m.model_code
-                          : m.nstates > 0 ? MOLQ_MODEL_LEVELS
-                                          : MOLQ_MODEL_RRHO;
+                          : (m.nstates > 0 || m.ntors > 0 || m.nvterms > 0 ||
+                             m.has_top_w)
+                              ? MOLQ_MODEL_LEVELS
+                              : MOLQ_MODEL_RRHO;
         molq_model other;
         molq_species *var = sentinel;
         for (k = 0; k < 6 && (k == 0 || fz_left(&f) > 0); k++) {
