@@ -1,7 +1,12 @@
+/* fstat and fileno are POSIX */
+#define _POSIX_C_SOURCE 200809L
+
 /* Species databases: read JSON (lib/data), validate and build each species,
  * reject duplicate names.  All-or-nothing: on any error nothing survives. */
 #include <errno.h>
 #include <stdio.h>
+#include <sys/stat.h>
+#include <sys/types.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -12,6 +17,56 @@
 
 extern const char molq_builtin_json[];
 extern const size_t molq_builtin_json_len;
+
+/* Work budget of one file: levels kept by all its level-sum models. */
+#define MOLQ_MAX_FILE_LEVELS 4000000u
+
+/* Duplicate names in O(n log n): sort (name, index) records and compare
+ * neighbours; report the same pair a pairwise scan in file order would
+ * (the duplicate with the smallest index, against its first occurrence).
+ * The records carry their own keys: no shared state, safe in threads. */
+typedef struct name_rec {
+    const char *name;
+    size_t idx;
+} name_rec;
+
+static int cmp_rec(const void *a, const void *b)
+{
+    const name_rec *x = a, *y = b;
+    int c = strcmp(x->name, y->name);
+    return c != 0 ? c : (x->idx > y->idx) - (x->idx < y->idx);
+}
+
+static molq_status find_duplicate(molq_spec *const *specs, size_t n,
+                                  size_t *first, size_t *dup)
+{
+    name_rec *r;
+    size_t k, best = (size_t)-1, best_first = 0;
+    if (n < 2)
+        return MOLQ_OK;
+    r = malloc(n * sizeof *r);
+    if (r == NULL)
+        return MOLQ_ENOMEM;
+    for (k = 0; k < n; k++) {
+        r[k].name = specs[k]->name;
+        r[k].idx = k;
+    }
+    qsort(r, n, sizeof *r, cmp_rec);
+    for (k = 1; k < n; k++) {
+        int group_start = k < 2 || strcmp(r[k - 1].name, r[k - 2].name) != 0;
+        if (group_start && strcmp(r[k].name, r[k - 1].name) == 0 &&
+            r[k].idx < best) {
+            best = r[k].idx;
+            best_first = r[k - 1].idx;
+        }
+    }
+    free(r);
+    if (best == (size_t)-1)
+        return MOLQ_OK;
+    *first = best_first;
+    *dup = best;
+    return MOLQ_EDUPLICATE;
+}
 
 struct molq_db_s {
     size_t n;
@@ -33,7 +88,7 @@ molq_status molq_db_read_string(const char *json, size_t len, molq_db **out,
                                 char *err, size_t errlen)
 {
     molq_spec **specs = NULL;
-    size_t n = 0, i, j;
+    size_t n = 0, i, j, levels = 0;
     molq_status st;
     molq_db *db;
     if (json == NULL || out == NULL) {
@@ -49,18 +104,25 @@ molq_status molq_db_read_string(const char *json, size_t len, molq_db **out,
         molq_errf(err, errlen, "species file: out of memory");
         goto fail;
     }
+    st = find_duplicate(specs, n, &j, &i);
+    if (st == MOLQ_EDUPLICATE)
+        molq_errf(err, errlen, "species '%s': field 'name': duplicate of "
+                  "species #%zu", specs[i]->name, j + 1);
+    if (st != MOLQ_OK)
+        goto fail;
     for (i = 0; i < n; i++) {
-        for (j = 0; j < i; j++)
-            if (strcmp(specs[i]->name, specs[j]->name) == 0) {
-                molq_errf(err, errlen, "species '%s': field 'name': duplicate "
-                          "of species #%zu", specs[i]->name, j + 1);
-                st = MOLQ_EDUPLICATE;
-                goto fail;
-            }
         st = molq_species_create(specs[i], &db->sp[i], err, errlen);
         if (st != MOLQ_OK)
             goto fail;
         db->n = i + 1;
+        levels += molq_species_level_count(db->sp[i]);
+        if (levels > MOLQ_MAX_FILE_LEVELS) {
+            molq_errf(err, errlen, "species '%s': the file's level sums hold "
+                      "more than %u levels in all (the work budget of one "
+                      "file)", specs[i]->name, MOLQ_MAX_FILE_LEVELS);
+            st = MOLQ_ELIMIT;
+            goto fail;
+        }
     }
     molq_specs_free(specs, n);
     *out = db;
@@ -88,17 +150,31 @@ molq_status molq_db_read_file(const char *path, molq_db **out, char *err,
                   strerror(errno));
         return MOLQ_EIO;
     }
+    {
+        struct stat sb;
+        if (fstat(fileno(f), &sb) == 0 && S_ISREG(sb.st_mode) &&
+            sb.st_size > (off_t)MOLQ_MAX_FILE_BYTES) {
+            fclose(f);
+            molq_errf(err, errlen, "%s: larger than the limit of %u bytes",
+                      path, MOLQ_MAX_FILE_BYTES);
+            return MOLQ_ELIMIT;
+        }
+    }
     buf = malloc(cap);
     while (buf != NULL && (got = fread(buf + len, 1, cap - len, f)) > 0) {
         len += got;
         if (len > MOLQ_MAX_FILE_BYTES)
             break;
         if (len == cap) {
-            char *nb = realloc(buf, cap * 2);
+            /* never more than the limit + 1 byte (enough to know) */
+            char *nb = realloc(buf, cap * 2 > MOLQ_MAX_FILE_BYTES + 1u
+                                        ? MOLQ_MAX_FILE_BYTES + 1u
+                                        : cap * 2);
             if (nb == NULL)
                 free(buf);
             buf = nb;
-            cap *= 2;
+            cap = cap * 2 > MOLQ_MAX_FILE_BYTES + 1u ? MOLQ_MAX_FILE_BYTES + 1u
+                                                     : cap * 2;
         }
     }
     if (buf == NULL) {

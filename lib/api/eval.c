@@ -117,12 +117,10 @@ molq_status molq_eval_spin_conversion(const molq_species *sp, double T,
 {
     molq_status st;
     size_t i;
-    if (sp == NULL || out == NULL)
+    if (sp == NULL || out == NULL || sp->model != MOLQ_MODEL_LEVELS)
         return MOLQ_EARG;
     if ((st = check_state(sp, T, MOLQ_P_STANDARD)) != MOLQ_OK)
         return st;
-    if (sp->model != MOLQ_MODEL_LEVELS)
-        return MOLQ_EARG;
     for (i = 0; i < sp->nmodes; i++)
         if (sp->modes[i].kind == MOLQ_MODE_ROVIBRONIC) {
             double v = molq_thermo_spin_conversion(sp, i, T);

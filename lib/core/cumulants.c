@@ -90,13 +90,18 @@ void molq_cumulants_add_harmonic(double x, double d, unsigned need,
     }
     if (e == 0.0)
         return; /* frozen mode: q = 1, no energy, no fluctuation */
-    r = x * e / om; /* k1 of the mode */
-    acc->k1 += d * r;
-    acc->k2 += d * r * x / om;
-    if (need & MOLQ_NEED_LNQ)
-        acc->lnq -= d * (x > 1.0 ? log1p(-e) : log(om));
-    if (need & MOLQ_NEED_K3)
-        acc->k3 += d * r * x * x * (1.0 + e) / (om * om);
+    /* q = x/(1-e) stays near 1 when x is tiny, so no x^2 / (1-e)^2
+     * underflows into 0/0 */
+    {
+        double qx = x / om;
+        r = qx * e; /* k1 of the mode */
+        acc->k1 += d * r;
+        acc->k2 += d * r * qx;
+        if (need & MOLQ_NEED_LNQ)
+            acc->lnq -= d * (x > 1.0 ? log1p(-e) : log(om));
+        if (need & MOLQ_NEED_K3)
+            acc->k3 += d * r * qx * qx * (1.0 + e);
+    }
 }
 
 #define SORTED_CUTOFF 60.0

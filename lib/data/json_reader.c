@@ -275,6 +275,14 @@ molq_status molq_json_read_specs(const char *text, size_t len,
         return MOLQ_ELIMIT;
     }
     root = json_loadb(text, len, JSON_REJECT_DUPLICATES, &jerr);
+    /* jansson reports most allocation failures with their own code, and a
+     * failure before it starts lexing with no text at all (a syntax error
+     * always has one) */
+    if (root == NULL && (json_error_code(&jerr) == json_error_out_of_memory ||
+                         (jerr.line == -1 && jerr.text[0] == '\0'))) {
+        molq_errf(err, errlen, "species file: out of memory");
+        return MOLQ_ENOMEM;
+    }
     if (root == NULL) {
         molq_errf(err, errlen, "species file: line %d, column %d (byte %d): "
                   "%s", jerr.line, jerr.column, jerr.position, jerr.text);

@@ -124,6 +124,7 @@ int molq_level_table_finish_at(molq_mode *m, molq_level_table *t,
         t->w[i] = pairs[2 * i + 1];
     }
     free(pairs);
+    m->raw_levels = t->n;
     if (dense)
         t->n = molq_levels_compress(t->theta, t->w, t->n);
     m->kind = kind;

@@ -114,6 +114,7 @@ struct molq_mode {
     } u;
     void *owned, *owned2; /* memory the mode allocated at init, freed
                              with it */
+    size_t raw_levels;    /* levels generated at init (work done) */
 };
 
 /* Translation of a particle of molar mass M (kg/mol), Sackur-Tetrode. */

@@ -39,7 +39,7 @@ static void linear_exact_sum(double y, double sigma, molq_cumulants *out)
     double r = exp(-2.0 * y), rj = r, e = 1.0;
     unsigned J;
     for (J = 0;; J++) {
-        double u = (double)J * (double)(J + 1) * y;
+        double u = J ? (double)J * (double)(J + 1) * y : 0.0;
         double w;
         if (u > LINEAR_SUM_CUTOFF && J > 0)
             break;
@@ -100,13 +100,14 @@ void molq_mode_rotation_init(molq_mode *m, int linear, int classical,
     *t_min = 0.0;
     if (linear) {
         r->theta = MOLQ_C2_CM_K * B[0];
-        r->lnq_const = -log(r->sigma * r->theta);
+        r->lnq_const = -log(r->sigma) - log(r->theta);
         r->corr = 0.0;
     } else {
         double tA = MOLQ_C2_CM_K * B[0], tB = MOLQ_C2_CM_K * B[1],
                tC = MOLQ_C2_CM_K * B[2];
         r->theta = tA;
-        r->lnq_const = 0.5 * log(MOLQ_PI / (tA * tB * tC)) - log(r->sigma);
+        r->lnq_const =
+            0.5 * (log(MOLQ_PI) - log(tA) - log(tB) - log(tC)) - log(r->sigma);
         r->corr = (2.0 * (tA + tB + tC) - tA * tB / tC - tB * tC / tA -
                    tA * tC / tB) /
                   12.0;

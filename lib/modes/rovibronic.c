@@ -255,6 +255,7 @@ int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
     m->kind = MOLQ_MODE_ROVIBRONIC;
     m->eval = eval_rovibronic;
     m->owned = block;
+    m->raw_levels = count;
     for (p = 0; p < 2; p++) {
         m->u.rv.n[p] = s.n[p];
         m->u.rv.theta[p] = s.theta[p];

@@ -15,11 +15,11 @@ static void eval_translation(const molq_mode *m, double T, double p,
 
 void molq_mode_translation_init(molq_mode *m, double molar_mass)
 {
-    double mass = molar_mass / MOLQ_N_AVOGADRO; /* kg per molecule */
     m->kind = MOLQ_MODE_TRANSLATION;
     m->eval = eval_translation;
+    /* a sum of logarithms: no product over- or underflows for any mass */
     m->u.tr.lnq_const =
-        1.5 * log(2.0 * MOLQ_PI * mass * MOLQ_K_BOLTZMANN /
-                  (MOLQ_H_PLANCK * MOLQ_H_PLANCK)) +
+        1.5 * (log(2.0 * MOLQ_PI * MOLQ_K_BOLTZMANN) + log(molar_mass) -
+               log(MOLQ_N_AVOGADRO) - 2.0 * log(MOLQ_H_PLANCK)) +
         log(MOLQ_K_BOLTZMANN);
 }

@@ -231,3 +231,11 @@ void molq_species_destroy(molq_species *sp)
     free(sp->arrays);
     free(sp);
 }
+
+size_t molq_species_level_count(const molq_species *sp)
+{
+    size_t i, n = 0;
+    for (i = 0; i < sp->nmodes; i++)
+        n += sp->modes[i].raw_levels;
+    return n;
+}

@@ -72,13 +72,20 @@ void molq_thermo_eval(const molq_species *sp, double T, double p,
         case MOLQ_G:            v = h - T * s; break;
         case MOLQ_A:            v = h - RT - T * s; break;
         case MOLQ_H_MINUS_H298: v = h_h0 - sp->h298_minus_h0; break;
-        case MOLQ_GEF:          v = s - (h_h0 - sp->h298_minus_h0) / T; break;
+        case MOLQ_GEF:          /* s - (H - H298)/T without forming H */
+                                v = s - MOLQ_R * (c.k1 + 1.0) +
+                                    sp->h298_minus_h0 / T;
+                                break;
         case MOLQ_H_MINUS_H0:   v = h_h0; break;
         case MOLQ_DCP_DT:       v = dcv; break;
         case MOLQ_DCV_DT:       v = dcv; break;
         case MOLQ_DS_DT:        v = cp / T; break;
         case MOLQ_DH_DT:        v = cp; break;
-        case MOLQ_DGRT_DT:      v = -h / (RT * T); break;
+        case MOLQ_DGRT_DT:      /* -h/(RT^2) without forming h */
+                                v = -((sp->formation_enthalpy -
+                                       sp->h298_minus_h0) / RT +
+                                      c.k1 + 1.0) / T;
+                                break;
         }
         out[i] = v;
     }
