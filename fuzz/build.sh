@@ -36,6 +36,12 @@ pkg-config --exists jansson gsl || die_missing "pkg-config cannot find jansson a
 
 mkdir -p "$B/obj"
 
+# One build at a time in a build directory (run.sh calls started together).
+if command -v flock >/dev/null 2>&1; then
+    exec 9>"$B/.lock"
+    flock 9
+fi
+
 # Does this clang have the libFuzzer and sanitizer runtimes?
 if [ ! -f "$B/.toolchain-ok" ]; then
     printf '#include <stddef.h>\n#include <stdint.h>\nint LLVMFuzzerTestOneInput(const uint8_t *d, size_t n) { (void)d; (void)n; return 0; }\n' \
