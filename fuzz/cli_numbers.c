@@ -5,6 +5,8 @@
  * NUL-terminated buffer; an embedded NUL ends it, as in argv).
  *   'n'  cli_parse_number
  *   'p'  cli_parse_positive("--p", ...)      the pressure parser
+ *   'c'  cli_parse_choice("--model", ...)    one name (rrho, levels)
+ *   'l'  cli_parse_choice_list("--compare", ...)  "rrho,levels"
  *   else cli_parse_temperatures("--T", ...)  T list or START:STOP:STEP
  * (the corpus files start with 'T', 'p' or 'n' so they read as text).
  *
@@ -16,6 +18,9 @@
  *    and > 0; a comma list has one value per entry, equal to strtod of the
  *    entry; a range starts at START, strictly ascends, does not pass STOP,
  *    and leaves no whole STEP unused before STOP;
+ *  - an accepted choice is exactly one of the names; an accepted choice
+ *    list has 1..n distinct valid indices whose names, joined by commas,
+ *    give back the text;
  *  - on failure the message is a non-empty NUL-terminated string that
  *    starts with "option <name>: ", and the outputs are untouched;
  *  - no leaks, no out-of-bounds access, no undefined behaviour (sanitizers).
@@ -152,6 +157,50 @@ static void fuzz_temperatures(const char *text)
     free(T);
 }
 
+static const char *const models[] = {"rrho", "levels"};
+#define NMODELS (sizeof models / sizeof models[0])
+
+static void fuzz_choice(const char *text)
+{
+    size_t idx = 777;
+    char msg[512];
+    memset(msg, 'x', sizeof msg);
+    if (cli_parse_choice("--model", "model", text, models, NMODELS, &idx, msg,
+                         sizeof msg) == 0) {
+        CHECK(idx < NMODELS && strcmp(models[idx], text) == 0,
+              "'%s' accepted as choice %zu", text, idx);
+    } else {
+        CHECK(idx == 777, "index written on failure");
+        check_failure_msg(msg, sizeof msg, "--model");
+    }
+}
+
+static void fuzz_choice_list(const char *text)
+{
+    size_t out[NMODELS], count = 777, i, k;
+    char msg[512], joined[64];
+    memset(msg, 'x', sizeof msg);
+    if (cli_parse_choice_list("--compare", "model", text, models, NMODELS,
+                              out, &count, msg, sizeof msg) != 0) {
+        CHECK(count == 777, "count written on failure");
+        check_failure_msg(msg, sizeof msg, "--compare");
+        return;
+    }
+    CHECK(count >= 1 && count <= NMODELS, "%zu choices from '%.80s'", count,
+          text);
+    joined[0] = '\0';
+    for (i = 0; i < count; i++) {
+        CHECK(out[i] < NMODELS, "index %zu out of range", out[i]);
+        for (k = 0; k < i; k++)
+            CHECK(out[k] != out[i], "'%s' accepted twice", models[out[i]]);
+        if (i > 0)
+            strcat(joined, ",");
+        strcat(joined, models[out[i]]);
+    }
+    CHECK(strcmp(joined, text) == 0, "'%.80s' accepted as '%s'", text,
+          joined);
+}
+
 int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 {
     char *text;
@@ -168,6 +217,10 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         fuzz_number(text);
     else if (sel == 'p')
         fuzz_positive(text);
+    else if (sel == 'c')
+        fuzz_choice(text);
+    else if (sel == 'l')
+        fuzz_choice_list(text);
     else
         fuzz_temperatures(text);
     free(text);
