@@ -257,6 +257,26 @@ START_TEST(model_variants)
                         tu_eval(o2, 777, 1e5, MOLQ_G));
     molq_species_free(lv);
     molq_species_free(rr);
+    /* Diatomic states with explicit rotational constants and no electronic
+     * levels: the rrho variant takes B from the file and the electronic
+     * levels from the states (a fuzz finding: the two were sized apart). */
+    {
+        static const char *js =
+            "{\"species\": [{\"name\": \"S\", \"molar_mass\": 30,"
+            " \"structure\": \"linear\", \"rotational_constants\": [1.5],"
+            " \"dissociation_energy\": 40000, \"diatomic_states\": ["
+            "{\"Te\": 0, \"we\": 1500, \"Be\": 1.5},"
+            "{\"Te\": 9000, \"degeneracy\": 2, \"we\": 1400, \"Be\": 1.4},"
+            "{\"Te\": 15000, \"we\": 1300, \"Be\": 1.3}]}]}";
+        molq_db *db;
+        const molq_species *s = tu_from_json(js, &db);
+        ck_assert_int_eq(molq_species_with_model(s, MOLQ_MODEL_RRHO, &rr, err,
+                                                 sizeof err),
+                         MOLQ_OK);
+        ck_assert(isfinite(tu_eval(rr, 3000, 1e5, MOLQ_CP)));
+        molq_species_free(rr);
+        molq_db_free(db);
+    }
     /* A species without level data: a clear error. */
     ck_assert_int_eq(molq_species_with_model(tu_species("Ar"),
                                              MOLQ_MODEL_LEVELS, &lv, err,

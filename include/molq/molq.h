@@ -317,8 +317,9 @@ MOLQ_API molq_status molq_spec_add_electronic_level(molq_spec *spec,
 MOLQ_API molq_status molq_spec_set_formation_enthalpy(molq_spec *spec,
                                                       double j_per_mol);
 
-/* Choose the model (default: MOLQ_MODEL_LEVELS when diatomic states are
- * given, MOLQ_MODEL_RRHO otherwise).  @return MOLQ_OK or MOLQ_EARG.
+/* Choose the model (default: MOLQ_MODEL_LEVELS when level data are given --
+ * diatomic states, torsions, anharmonic constants or top weights -- and
+ * MOLQ_MODEL_RRHO otherwise).  @return MOLQ_OK or MOLQ_EARG.
  * Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_model(molq_spec *spec, molq_model model);
 
@@ -431,9 +432,11 @@ MOLQ_API molq_status molq_spec_set_top_weights(molq_spec *spec, double ee,
 /* Validate a description and build an immutable species from it.
  * On failure nothing is allocated, *out is untouched and err names the
  * species and field ("species 'X': field 'symmetry_number': ...").
- * @return MOLQ_OK, MOLQ_EARG (NULL spec/out), MOLQ_EKEY (molar mass neither
- *         set nor computable from the formula), MOLQ_EVALUE (a value out of
- *         range), MOLQ_ENOMEM.
+ * @return MOLQ_OK, MOLQ_EARG (NULL spec/out), MOLQ_EKEY (a required input
+ *         missing: molar mass neither set nor computable from the formula,
+ *         or the dissociation energy or states a level sum needs),
+ *         MOLQ_EVALUE (a value out of range), MOLQ_ELIMIT (a level sum with
+ *         more than 400000 bound levels), MOLQ_ENOMEM.
  * Ownership: *out is the caller's; free with molq_species_free.  The
  * description may be freed or reused afterwards.  Thread-safe for distinct
  * descriptions.  Added in 0.1.0. */

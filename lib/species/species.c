@@ -38,6 +38,13 @@ static int replaced(const molq_spec *spec, size_t i, int levels)
     return levels && molq_spec_replaced(spec, i);
 }
 
+/* Each input comes from the spec when given there, else from the diatomic
+ * states when there are any: the same rule for sizing (here) and filling
+ * (fill_rrho_arrays), so the two cannot disagree. */
+static int derive_rot(const molq_spec *s) { return s->nrot == 0 && s->nstates > 0; }
+static int derive_vib(const molq_spec *s) { return s->nvib == 0 && s->nstates > 0; }
+static int derive_el(const molq_spec *s) { return s->nel == 0 && s->nstates > 0; }
+
 static void rrho_inputs_of(const molq_spec *spec, int levels,
                            rrho_inputs *r)
 {
@@ -45,23 +52,20 @@ static void rrho_inputs_of(const molq_spec *spec, int levels,
     r->nrot = spec->nrot;
     for (i = 0; i < spec->nrot; i++)
         r->rot[i] = spec->rot[i];
+    if (derive_rot(spec)) {
+        r->rot[0] = dunham_column(&spec->states[0], 1, 0.5);
+        r->nrot = 1;
+    }
     r->nvib = 0;
     for (i = 0; i < spec->nvib; i++)
         r->nvib += !replaced(spec, i, levels);
-    r->nel = spec->nel > 0 ? spec->nel : 1;
-    if (spec->nstates > 0 && spec->nrot == 0) {
-        r->rot[0] = dunham_column(&spec->states[0], 1, 0.5);
-        r->nrot = 1;
-        if (spec->nvib == 0)
-            r->nvib = 1;
-        if (spec->nel == 0)
-            r->nel = spec->nstates;
-    }
+    if (derive_vib(spec))
+        r->nvib = 1;
+    r->nel = spec->nel > 0 ? spec->nel : derive_el(spec) ? spec->nstates : 1;
 }
 
-static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
-                             int levels, double *vt, double *vg, double *et,
-                             double *eg)
+static void fill_rrho_arrays(const molq_spec *spec, int levels, double *vt,
+                             double *vg, double *et, double *eg)
 {
     size_t i, k = 0;
     const molq_spec_state *x = spec->states;
@@ -72,8 +76,9 @@ static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
             vt[k] = MOLQ_C2_CM_K * spec->vib_wn[i];
             vg[k++] = (double)spec->vib_deg[i];
         }
-    } else if (r->nvib == 1) {
-        vt[0] = MOLQ_C2_CM_K * (dunham_column(x, 0, 1.5) - dunham_column(x, 0, 0.5));
+    } else if (derive_vib(spec)) {
+        vt[0] = MOLQ_C2_CM_K *
+                (dunham_column(x, 0, 1.5) - dunham_column(x, 0, 0.5));
         vg[0] = 1.0;
     }
     if (spec->nel > 0) {
@@ -81,11 +86,12 @@ static void fill_rrho_arrays(const molq_spec *spec, const rrho_inputs *r,
             et[i] = MOLQ_C2_CM_K * spec->el_e[i];
             eg[i] = (double)spec->el_g[i];
         }
-    } else if (spec->nstates > 0) {
+    } else if (derive_el(spec)) {
         molq_rovib_state st[MOLQ_MAX_STATES];
         molq_spec_rovib_states(spec, st);
         for (i = 0; i < spec->nstates; i++) {
-            et[i] = MOLQ_C2_CM_K * (st[i].te + dunham_column(&spec->states[i], 0, 0.5) -
+            et[i] = MOLQ_C2_CM_K * (st[i].te +
+                                    dunham_column(&spec->states[i], 0, 0.5) -
                                     dunham_column(x, 0, 0.5));
             eg[i] = st[i].g * spec->sigma * 0.5 * (st[i].w_even + st[i].w_odd);
         }
@@ -117,7 +123,7 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     vg = vt + r.nvib;
     et = vg + r.nvib;
     eg = et + r.nel;
-    fill_rrho_arrays(spec, &r, levels, vt, vg, et, eg);
+    fill_rrho_arrays(spec, levels, vt, vg, et, eg);
     if (levels && spec->structure == MOLQ_NONLINEAR &&
         spec->rotor == MOLQ_ROTOR_CORRECTED && molq_asymtop_fits(r.rot)) {
         /* the exact top, with spin weights: valid at every T */
