@@ -52,10 +52,18 @@ _INT_CLAMP = 1000000000
 
 # The library's models (molq_model) by the names species files use.  A new
 # model needs one entry here and nothing else in the binding.
-_MODELS = {
-    "rrho": 0,    # rigid rotor, harmonic vibrations, electronic level list
-    "levels": 1,  # level sums: diatomic ro-vibrational levels, torsions
-}
+def _build_model_table():
+    # from the library, so a new model needs no change here: "rrho" (rigid
+    # rotor, harmonic vibrations, electronic levels), "levels" (level sums)
+    table = {}
+    for i in range(_L.molq_model_count()):
+        name = _L.molq_model_name(i)
+        if name is not None:
+            table[name.decode("ascii")] = i
+    return table
+
+
+_MODELS = _build_model_table()
 _MODEL_BY_ID = {v: k for k, v in _MODELS.items()}
 
 # Named spectroscopic constants of a diatomic state as Dunham coefficients

@@ -89,6 +89,8 @@ _PROTOTYPES = [
     ("molq_version_string", _str, []),
     ("molq_status_string", _str, [_int]),
     ("molq_property_count", _size, []),
+    ("molq_model_count", _size, []),
+    ("molq_model_name", _str, [_int]),
     ("molq_property_name", _str, [_int]),
     ("molq_property_unit", _str, [_int]),
     ("molq_property_from_name", _int, [_str, _c.POINTER(_int)]),
