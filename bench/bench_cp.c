@@ -100,7 +100,11 @@ static const bench_species SPECIES[] = {
     {"N2", "N2", MOLQ_MODEL_RRHO, 1, 1, {2329.915}, {1}},
     {"N2-lev", "N2", MOLQ_MODEL_LEVELS, 1, 1, {2329.915}, {1}},
     {"H2O", "H2O", MOLQ_MODEL_RRHO, 0, 3, {3657.0, 1595.0, 3756.0}, {1, 1, 1}},
+    {"H2O-lev", "H2O", MOLQ_MODEL_LEVELS, 0, 3, {3657.0, 1595.0, 3756.0},
+     {1, 1, 1}},
     {"CO2", "CO2", MOLQ_MODEL_RRHO, 1, 3, {1333.0, 667.0, 2349.0}, {1, 2, 1}},
+    {"CO2-lev", "CO2", MOLQ_MODEL_LEVELS, 1, 3, {1333.0, 667.0, 2349.0},
+     {1, 2, 1}},
 };
 #define NSPECIES (sizeof SPECIES / sizeof SPECIES[0])
 
