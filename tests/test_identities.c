@@ -100,6 +100,24 @@ START_TEST(identities_classical_rotor)
 }
 END_TEST
 
+START_TEST(identities_frozen_spin_isomers)
+{
+    /* Normal hydrogen: a frozen 3:1 mixture of the two nuclear-spin
+     * modifications (invented variant of the starter constants). */
+    static const char *js =
+        "{\"species\": [{\"name\": \"nH2\", \"molar_mass\": 2.01588,"
+        " \"structure\": \"linear\", \"symmetry_number\": 2,"
+        " \"dissociation_energy\": 36118.07, \"spin_isomers\": \"frozen\","
+        " \"odd_fraction\": 0.75, \"diatomic_states\": [{\"Te\": 0,"
+        " \"we\": 4401.21, \"wexe\": 121.33, \"Be\": 60.853,"
+        " \"alpha_e\": 3.062, \"De\": 0.0471,"
+        " \"rotational_weights\": [0.25, 0.75]}]}]}";
+    molq_db *db;
+    check_species(tu_from_json(js, &db));
+    molq_db_free(db);
+}
+END_TEST
+
 static double cp_over_T(double T, void *sp)
 {
     return tu_eval(sp, T, p_test, MOLQ_CP) / T;
@@ -184,6 +202,7 @@ int main(void)
     tcase_set_timeout(tc, 120);
     tcase_add_test(tc, identities_builtin);
     tcase_add_test(tc, identities_classical_rotor);
+    tcase_add_test(tc, identities_frozen_spin_isomers);
     tcase_add_test(tc, entropy_is_integral_of_cp_over_T);
     tcase_add_test(tc, pressure_dependence);
     tcase_add_test(tc, enthalpy_scale);
