@@ -48,6 +48,21 @@ START_TEST(argon_every_row)
 }
 END_TEST
 
+/* Atoms with fine structure: S(298.15) from CODATA Key Values for
+ * Thermodynamics (1989) (from memory): N 153.301 (4S ground level only),
+ * Cl 165.190 (2P3/2 with 2P1/2 at 882 cm^-1 contributing 1.4 %),
+ * O 161.059 (3P2,1,0).  Exact models: translation and level sums. */
+START_TEST(fine_structure_atoms)
+{
+    ck_assert_double_eq_tol(tu_eval(tu_species("N"), 298.15, 1e5, MOLQ_S),
+                            153.301, 0.003);
+    ck_assert_double_eq_tol(tu_eval(tu_species("Cl"), 298.15, 1e5, MOLQ_S),
+                            165.190, 0.003);
+    ck_assert_double_eq_tol(tu_eval(tu_species("O"), 298.15, 1e5, MOLQ_S),
+                            161.059, 0.003);
+}
+END_TEST
+
 /* Standard entropy and heat capacity at 298.15 K. */
 static const struct ref298 {
     const char *name;
@@ -163,6 +178,7 @@ int main(void)
     Suite *s = suite_create("tables");
     TCase *tc = tcase_create("published");
     tcase_add_test(tc, argon_every_row);
+    tcase_add_test(tc, fine_structure_atoms);
     tcase_add_loop_test(tc, standard_values_298, 0,
                         sizeof refs / sizeof refs[0]);
     tcase_add_loop_test(tc, rrho_reach_over_tables, 0,
