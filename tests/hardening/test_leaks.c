@@ -1109,8 +1109,6 @@ int main(void)
 {
     Suite *s = suite_create("hardening-leaks");
     TCase *tc = tcase_create("leaks");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 900);
     tcase_add_loop_test(tc, bad_files, 0, NJSON);
     tcase_add_test(tc, generated_bad_files);
@@ -1120,9 +1118,5 @@ int main(void)
     tcase_add_test(tc, model_variants);
     tcase_add_test(tc, counter_sees_a_leak);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

@@ -458,8 +458,6 @@ int main(void)
 {
     Suite *s = suite_create("hardening-limits");
     TCase *tc = tcase_create("limits");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 3600);
     tcase_add_test(tc, string_size);
     tcase_add_test(tc, file_size);
@@ -469,9 +467,5 @@ int main(void)
     tcase_add_test(tc, name_length);
     tcase_add_test(tc, total_work_of_a_file);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

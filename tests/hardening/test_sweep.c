@@ -911,16 +911,10 @@ int main(void)
 {
     Suite *s = suite_create("hardening-sweep");
     TCase *tc = tcase_create("sweep");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 600);
     tcase_add_test(tc, range_sweep);
     tcase_add_test(tc, special_values);
     tcase_add_loop_test(tc, edge_species, 0, sizeof edges / sizeof edges[0]);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

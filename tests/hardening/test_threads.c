@@ -661,14 +661,8 @@ int main(void)
 {
     Suite *s = suite_create("hardening-threads");
     TCase *tc = tcase_create("threads");
-    SRunner *sr;
-    int failed;
     tcase_set_timeout(tc, 600);
     tcase_add_test(tc, shared_handles_under_threads);
     suite_add_tcase(s, tc);
-    sr = srunner_create(s);
-    srunner_run_all(sr, CK_NORMAL);
-    failed = srunner_ntests_failed(sr);
-    srunner_free(sr);
-    return failed == 0 ? EXIT_SUCCESS : EXIT_FAILURE;
+    return tu_run(s);
 }

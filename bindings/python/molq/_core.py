@@ -52,18 +52,19 @@ _INT_CLAMP = 1000000000
 
 # The library's models (molq_model) by the names species files use.  A new
 # model needs one entry here and nothing else in the binding.
-def _build_model_table():
-    # from the library, so a new model needs no change here: "rrho" (rigid
-    # rotor, harmonic vibrations, electronic levels), "levels" (level sums)
+def _name_table(count, name_of):
+    """{name: value} of a library enumeration, read from the library so a
+    new value needs no change here."""
     table = {}
-    for i in range(_L.molq_model_count()):
-        name = _L.molq_model_name(i)
+    for i in range(count()):
+        name = name_of(i)
         if name is not None:
             table[name.decode("ascii")] = i
     return table
 
 
-_MODELS = _build_model_table()
+# "rrho" (rigid rotor, harmonic vibrations, electronic levels), "levels"
+_MODELS = _name_table(_L.molq_model_count, _L.molq_model_name)
 _MODEL_BY_ID = {v: k for k, v in _MODELS.items()}
 
 # Named spectroscopic constants of a diatomic state as Dunham coefficients
@@ -139,16 +140,7 @@ def _encode_name(text, what):
 # Properties
 # ---------------------------------------------------------------------------
 
-def _build_property_table():
-    table = {}
-    for i in range(_L.molq_property_count()):
-        name = _L.molq_property_name(i)
-        if name is not None:
-            table[name.decode("ascii")] = i
-    return table
-
-
-_PROPS = _build_property_table()
+_PROPS = _name_table(_L.molq_property_count, _L.molq_property_name)
 
 
 def property_names():
