@@ -15,20 +15,7 @@ TARGETS=${*:-$ALL}
 for t in $TARGETS; do
     case " $ALL " in *" $t "*) ;; *) echo "fuzz/regress.sh: unknown target '$t' (targets: $ALL)" >&2; exit 2 ;; esac
 done
-B=${MOLQ_FUZZ_BUILD:-build-fuzz}
-case $B in /*) ;; *) B="$ROOT/$B" ;; esac
-export MOLQ_FUZZ_BUILD="$B"
-
-fuzz/build.sh || exit $?
-
-for s in /usr/lib/llvm-14/bin/llvm-symbolizer "$(command -v llvm-symbolizer 2>/dev/null || true)"; do
-    if [ -n "$s" ] && [ -x "$s" ]; then
-        export ASAN_SYMBOLIZER_PATH="$s"
-        break
-    fi
-done
-export ASAN_OPTIONS="${ASAN_OPTIONS:-detect_leaks=1}"
-export UBSAN_OPTIONS="${UBSAN_OPTIONS:-halt_on_error=1:print_stacktrace=1}"
+. fuzz/env.sh
 
 mkdir -p "$B/logs"
 log="$B/logs/regress.log"

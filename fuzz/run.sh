@@ -36,21 +36,7 @@ for t in $TARGETS; do
     case " $ALL " in *" $t "*) ;; *) echo "fuzz/run.sh: unknown target '$t'" >&2; usage ;; esac
 done
 
-B=${MOLQ_FUZZ_BUILD:-build-fuzz}
-case $B in /*) ;; *) B="$ROOT/$B" ;; esac
-export MOLQ_FUZZ_BUILD="$B"
-
-fuzz/build.sh || exit $?
-
-# Symbolised stack traces when llvm-symbolizer is around (Debian llvm-14).
-for s in /usr/lib/llvm-14/bin/llvm-symbolizer "$(command -v llvm-symbolizer 2>/dev/null || true)"; do
-    if [ -n "$s" ] && [ -x "$s" ]; then
-        export ASAN_SYMBOLIZER_PATH="$s"
-        break
-    fi
-done
-export ASAN_OPTIONS="${ASAN_OPTIONS:-detect_leaks=1}"
-export UBSAN_OPTIONS="${UBSAN_OPTIONS:-halt_on_error=1:print_stacktrace=1}"
+. fuzz/env.sh
 
 mkdir -p fuzz/crashes "$B/logs"
 failed=""

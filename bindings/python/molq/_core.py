@@ -155,13 +155,18 @@ def property_unit(name):
     return _decode(_L.molq_property_unit(_prop_id(name)))
 
 
-def _prop_id(name):
+def _lookup(table, name, what, plural):
+    """Value of `name` in a name table; ValueError naming the known ones."""
     try:
-        return _PROPS[name]
+        return table[name]
     except (KeyError, TypeError):
         pass
-    raise ValueError("unknown property %r; known properties: %s"
-                     % (name, ", ".join(_PROPS)))
+    raise ValueError("unknown %s %r; known %s: %s"
+                     % (what, name, plural, ", ".join(table)))
+
+
+def _prop_id(name):
+    return _lookup(_PROPS, name, "property", "properties")
 
 
 def model_names():
@@ -174,12 +179,7 @@ def model_names():
 
 
 def _model_id(name):
-    try:
-        return _MODELS[name]
-    except (KeyError, TypeError):
-        pass
-    raise ValueError("unknown model %r; known models: %s"
-                     % (name, ", ".join(_MODELS)))
+    return _lookup(_MODELS, name, "model", "models")
 
 
 def version():
