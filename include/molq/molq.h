@@ -429,6 +429,33 @@ MOLQ_API molq_status molq_spec_set_top_weights(molq_spec *spec, double ee,
                                                double eo, double oe,
                                                double oo);
 
+/* Nuclear-spin statistics of tops whose identical nuclei are exchanged by
+ * a threefold axis (used by the exact rigid-top levels of
+ * MOLQ_MODEL_LEVELS, like molq_spec_set_top_weights).  Added in 0.1.0. */
+typedef enum molq_spin_group {
+    /* symmetric top, point group C3v: three identical nuclei round the
+     * figure axis (NH3, PH3, CH3F); symmetry number 3 */
+    MOLQ_SPIN_GROUP_C3V = 1,
+    /* spherical top, point group Td: four identical nuclei at the corners
+     * of a tetrahedron (CH4, SiH4, CF4); symmetry number 12 */
+    MOLQ_SPIN_GROUP_TD = 2
+} molq_spin_group;
+
+/* Weigh each rotational level of a nonlinear molecule by the nuclear-spin
+ * states its symmetry admits, for the identical nuclei of spin
+ * nuclear_spin (I = 0, 1/2, 1, ...; 1/2 for protons) and the given group:
+ * C3v, K = 0 mod 3 states n^2 + 2 against n^2 - 1 otherwise (n = 2I + 1;
+ * protons 2 : 1); Td, the J level's A, E, F species (protons 5 : 2 : 3).
+ * Conventional scale (the nuclear-spin entropy R ln n^N excluded), so the
+ * weights average to 1/sigma at high T.  molq_species_create checks that
+ * the rotational constants make the right top (two equal for C3v, three
+ * for Td, to 1e-6 relative), that the symmetry number is 3 or 12, and that
+ * molq_spec_set_top_weights is not also used.  @return MOLQ_OK or
+ * MOLQ_EARG (NULL spec).  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_top_spin_group(molq_spec *spec,
+                                                  molq_spin_group group,
+                                                  double nuclear_spin);
+
 /* Validate a description and build an immutable species from it.
  * On failure nothing is allocated, *out is untouched and err names the
  * species and field ("species 'X': field 'symmetry_number': ...").

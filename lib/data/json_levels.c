@@ -12,7 +12,7 @@
 const char *const molq_json_levels_keys[] = {
     "model", "dissociation_energy", "spin_isomers", "odd_fraction",
     "diatomic_states", "torsions", "anharmonicity", "rotational_weights",
-    NULL};
+    "rotational_spin", NULL};
 
 static const char *const torsion_keys[] = {
     "rotational_constant", "reduced_moment", "symmetry_number", "barrier",
@@ -314,6 +314,46 @@ static molq_status read_top_weights(molq_json_ctx *c, molq_spec *s,
     return molq_spec_set_top_weights(s, w[0], w[1], w[2], w[3]);
 }
 
+/* "rotational_spin": {"group": "C3v" | "Td", "nuclear_spin": I}. */
+static molq_status read_spin_group(molq_json_ctx *c, molq_spec *s,
+                                   json_t *obj)
+{
+    static const char *const keys[] = {"group", "nuclear_spin", NULL};
+    const char *text;
+    json_t *v;
+    double spin;
+    molq_spin_group g;
+    molq_status st;
+    if (!json_is_object(obj))
+        return molq_json_key_error(c, MOLQ_ETYPE, "rotational_spin",
+                                   "expected {\"group\": \"C3v\" or "
+                                   "\"Td\", \"nuclear_spin\": I}");
+    if ((st = molq_json_check_keys(c, obj, keys, "rotational_spin.")) !=
+        MOLQ_OK)
+        return st;
+    if ((v = json_object_get(obj, "group")) == NULL)
+        return molq_json_key_error(c, MOLQ_EKEY, "rotational_spin.group",
+                                   "missing");
+    if ((st = molq_json_string(c, v, "rotational_spin.group", &text)) !=
+        MOLQ_OK)
+        return st;
+    if (strcmp(text, "C3v") == 0)
+        g = MOLQ_SPIN_GROUP_C3V;
+    else if (strcmp(text, "Td") == 0)
+        g = MOLQ_SPIN_GROUP_TD;
+    else
+        return molq_json_key_error(c, MOLQ_EVALUE, "rotational_spin.group",
+                                   "must be \"C3v\" or \"Td\"");
+    if ((v = json_object_get(obj, "nuclear_spin")) == NULL)
+        return molq_json_key_error(c, MOLQ_EKEY,
+                                   "rotational_spin.nuclear_spin",
+                                   "missing (1/2 for protons)");
+    if ((st = molq_json_number(c, v, "rotational_spin.nuclear_spin",
+                               &spin)) != MOLQ_OK)
+        return st;
+    return molq_spec_set_top_spin_group(s, g, spin);
+}
+
 molq_status molq_json_read_levels(molq_json_ctx *c, json_t *e, molq_spec *s)
 {
     json_t *v, *item;
@@ -359,6 +399,9 @@ molq_status molq_json_read_levels(molq_json_ctx *c, json_t *e, molq_spec *s)
                          "\"spin_isomers\": \"frozen\"");
     if ((v = json_object_get(e, "rotational_weights")) != NULL &&
         (st = read_top_weights(c, s, v)) != MOLQ_OK)
+        return st;
+    if ((v = json_object_get(e, "rotational_spin")) != NULL &&
+        (st = read_spin_group(c, s, v)) != MOLQ_OK)
         return st;
     if ((v = json_object_get(e, "anharmonicity")) != NULL &&
         (st = read_anharmonicity(c, s, v)) != MOLQ_OK)

@@ -110,7 +110,7 @@ molq_model molq_spec_default_model(const molq_spec *s)
     if (s->has_model)
         return (molq_model)s->model;
     return (s->nstates > 0 || s->ntorsions > 0 || s->nvterms > 0 ||
-            s->has_top_w)
+            s->has_top_w || s->spin_group != 0)
                ? MOLQ_MODEL_LEVELS
                : MOLQ_MODEL_RRHO;
 }
@@ -465,5 +465,15 @@ molq_status molq_spec_set_top_weights(molq_spec *s, double ee, double eo,
     s->top_w[2] = oe;
     s->top_w[3] = oo;
     s->has_top_w = 1;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_top_spin_group(molq_spec *s, molq_spin_group group,
+                                         double nuclear_spin)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->spin_group = (int)group;
+    s->nuclear_spin = nuclear_spin;
     return MOLQ_OK;
 }

@@ -316,6 +316,40 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
         FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants': must be "
              "ordered A >= B >= C (got %g, %g, %g)", nm, s->rot[0], s->rot[1],
              s->rot[2]);
+    if (s->spin_group != 0) {
+        int c3 = s->spin_group == MOLQ_SPIN_GROUP_C3V;
+        if (!c3 && s->spin_group != MOLQ_SPIN_GROUP_TD)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_spin.group': "
+                 "unknown group %d", nm, s->spin_group);
+        if (s->structure != MOLQ_NONLINEAR)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_spin': spin "
+                 "groups are for nonlinear molecules", nm);
+        if (s->has_top_w)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_spin': give "
+                 "either a spin group or 'rotational_weights', not both", nm);
+        if (!isfinite(s->nuclear_spin) || s->nuclear_spin < 0.0 ||
+            s->nuclear_spin > 10.0 ||
+            2.0 * s->nuclear_spin != floor(2.0 * s->nuclear_spin))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_spin."
+                 "nuclear_spin': must be 0, 1/2, 1, ... up to 10 (got %g)",
+                 nm, s->nuclear_spin);
+        if (s->sigma != (c3 ? 3 : 12))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'symmetry_number': the %s "
+                 "spin group needs %d (got %d)", nm, c3 ? "C3v" : "Td",
+                 c3 ? 3 : 12, s->sigma);
+        if (s->nrot == 3) {
+            const double tol = 1e-6;
+            int ab = s->rot[0] - s->rot[1] <= tol * s->rot[0];
+            int bc = s->rot[1] - s->rot[2] <= tol * s->rot[1];
+            if (c3 ? !(ab || bc) : !(ab && bc))
+                FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants'"
+                     ": the %s spin group needs a %s top (got %g, %g, %g)",
+                     nm, c3 ? "C3v" : "Td",
+                     c3 ? "symmetric (two constants equal)"
+                        : "spherical (three constants equal)",
+                     s->rot[0], s->rot[1], s->rot[2]);
+        }
+    }
 
     if (s->structure == MOLQ_ATOM && s->nvib > 0)
         FAIL(MOLQ_EVALUE, "species '%s': field 'vibrations': an atom has no "

@@ -12,6 +12,26 @@
  * nuclear-spin weight (conventional scale; for water 1/4 for Ka + Kc even,
  * 3/4 for odd).
  *
+ * Tops with a threefold axis take their spin statistics from the
+ * symmetry of each level under the rotations that exchange the identical
+ * nuclei (all even permutations, so the rule holds for fermions and bosons
+ * alike): the nuclear-spin functions invariant under the rotational
+ * subgroup G, counted by characters, (1/|G|) sum_R chi_rot(R) chi_spin(R),
+ * with chi_spin(R) = n^(cycles of R), n = 2I + 1, divided by n^N for the
+ * conventional scale.
+ *  - Symmetric top, C3v (three nuclei round the figure axis, NH3, CH3F):
+ *    E = Bbar J(J+1) + (A_fig - Bbar) K^2, and |J K> picks up
+ *    exp(2 pi i K/3) under C3, so each K state weighs
+ *    (n^3 + 2n cos(2 pi K/3)) / (3 n^3): 1/2 for K = 0 mod 3, 1/4 otherwise
+ *    for protons.
+ *  - Spherical top, Td (CH4, SiH4, CF4): E = Bbar J(J+1); the (2J+1)
+ *    K states of J carry the rotation characters
+ *    chi_J(theta) = sin((2J+1) theta/2) / sin(theta/2) under the group T
+ *    (E, 8 C3, 3 C2), so a J level weighs
+ *    (2J+1) [n^4 (2J+1) + 8 n^2 chi_J(2pi/3) + 3 n^2 (-1)^J] / (12 n^4)
+ *    (protons: J = 0 has 5/16, the A level with the five I = 2 spin states).
+ * Both reduce to 1/sigma per state at high T (sigma 3 and 12).
+ *
  * Levels are kept up to 40 kT at T2 = 60 theta_A; the exact sum (tabulated)
  * is used up to T1 = 30 theta_A, the corrected high-temperature rotor
  * (rotation.c) above T2, and a C^3 blend in ln T in between
@@ -35,6 +55,8 @@ typedef struct top_sink {
     double *theta, *w;
     size_t n;
 } top_sink;
+
+static void store(top_sink *out, double e_cm1, double weight);
 
 /* Diagonalise one Wang block (kpar: 0 even K, 1 odd K; sign +1/-1) of J
  * and store its levels.  a: scratch for the matrix, ev: eigenvalues. */
@@ -69,13 +91,8 @@ static void block(double A, double B, double C, int J, int kpar, int sign,
     cls = 2u * (unsigned)kpar + (unsigned)((kpar + (c2b < 0)) & 1);
     if (w[cls] <= 0.0)
         return;
-    for (i = 0; i < n; i++) {
-        if (out->theta != NULL) {
-            out->theta[out->n] = MOLQ_C2_CM_K * ev[i];
-            out->w[out->n] = (2.0 * J + 1.0) * w[cls];
-        }
-        out->n++;
-    }
+    for (i = 0; i < n; i++)
+        store(out, ev[i], (2.0 * J + 1.0) * w[cls]);
 }
 
 static double level_cap(const double *abc)
@@ -89,15 +106,65 @@ int molq_asymtop_fits(const double *abc)
     return jj < (double)MAX_J * (MAX_J + 1.0);
 }
 
+static void store(top_sink *out, double e_cm1, double weight)
+{
+    if (out->theta != NULL) {
+        out->theta[out->n] = MOLQ_C2_CM_K * e_cm1;
+        out->w[out->n] = weight;
+    }
+    out->n++;
+}
+
+/* Symmetric top (two constants equal) with C3 spin statistics. */
+static void symmetric_c3(const double *abc, double n, int jmax,
+                         top_sink *out)
+{
+    /* the figure axis is a (prolate, B = C) or c (oblate, A = B) */
+    int prolate = abc[1] - abc[2] <= abc[0] - abc[1];
+    double bbar = prolate ? 0.5 * (abc[1] + abc[2]) : 0.5 * (abc[0] + abc[1]);
+    double fig = prolate ? abc[0] : abc[2];
+    double n3 = n * n * n;
+    double w0 = (n3 + 2.0 * n) / (3.0 * n3), w1 = (n3 - n) / (3.0 * n3);
+    int J, K;
+    for (J = 0; J <= jmax; J++)
+        for (K = 0; K <= J; K++)
+            store(out, bbar * J * (J + 1.0) + (fig - bbar) * K * K,
+                  (2.0 * J + 1.0) * (K ? 2.0 : 1.0) * (K % 3 ? w1 : w0));
+}
+
+/* Spherical top with tetrahedral spin statistics. */
+static void spherical_td(const double *abc, double n, int jmax,
+                         top_sink *out)
+{
+    static const double chi3[3] = {1.0, 0.0, -1.0}; /* chi_J(2 pi/3) */
+    double bbar = (abc[0] + abc[1] + abc[2]) / 3.0, n2 = n * n;
+    int J;
+    for (J = 0; J <= jmax; J++) {
+        double d = 2.0 * J + 1.0;
+        store(out, bbar * J * (J + 1.0),
+              d * (n2 * n2 * d + 8.0 * n2 * chi3[J % 3] +
+                   3.0 * n2 * ((J & 1) ? -1.0 : 1.0)) / (12.0 * n2 * n2));
+    }
+}
+
 /* All levels below emax (cm^-1): J grows until C J(J+1) passes emax
  * (at most MAX_J, checked by molq_asymtop_fits). */
-static int levels(const double *abc, const double *w, double emax,
+static int levels(const double *abc, const molq_top_spin *spin, double emax,
                   top_sink *out)
 {
     int J, jmax = 0;
     double *a, *ev;
+    const double *w = spin->w;
     while (jmax < MAX_J && abc[2] * jmax * (jmax + 1.0) <= emax)
         jmax++;
+    if (spin->kind == MOLQ_TOP_SPIN_C3) {
+        symmetric_c3(abc, spin->n, jmax, out);
+        return 0;
+    }
+    if (spin->kind == MOLQ_TOP_SPIN_TETRA) {
+        spherical_td(abc, spin->n, jmax, out);
+        return 0;
+    }
     a = malloc(((size_t)(jmax / 2 + 2) * (size_t)(jmax / 2 + 4)) *
                sizeof *a);
     ev = malloc((size_t)(jmax / 2 + 2) * sizeof *ev);
@@ -139,7 +206,7 @@ static void eval_asymtop(const molq_mode *m, double T, double p,
 }
 
 int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
-                           const double *w)
+                           const molq_top_spin *spin)
 {
     struct molq_asymtop_params *t = &m->u.top;
     double theta_a = MOLQ_C2_CM_K * abc[0], t2 = HANDOVER_HI * theta_a;
@@ -147,7 +214,7 @@ int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
     top_sink count = {NULL, NULL, 0}, fill;
     molq_mode high;
     double *block_mem;
-    if (levels(abc, w, emax, &count) != 0)
+    if (levels(abc, spin, emax, &count) != 0)
         return -1;
     block_mem = malloc((2 * count.n + 1) * sizeof *block_mem);
     if (block_mem == NULL)
@@ -155,7 +222,7 @@ int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
     fill.theta = block_mem;
     fill.w = block_mem + count.n;
     fill.n = 0;
-    if (levels(abc, w, emax, &fill) != 0) {
+    if (levels(abc, spin, emax, &fill) != 0) {
         free(block_mem);
         return -1;
     }

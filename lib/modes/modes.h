@@ -155,12 +155,23 @@ int molq_mode_rovibronic_init(molq_mode *m, const molq_rovib_state *st,
 void molq_rotation_cumulants(const molq_rotation_params *r, double T,
                              unsigned need, molq_cumulants *out);
 
-/* Exact rigid asymmetric top (A >= B >= C, cm^-1) with nuclear-spin weights
- * w[4] of the (Ka, Kc) parity classes ee, eo, oe, oo (conventional scale),
- * handing over to the corrected rotor between 30 and 60 theta_A.  Returns
- * 0, or -1 on allocation failure. */
+/* Nuclear-spin statistics of an exact top's rotational levels. */
+enum {
+    MOLQ_TOP_SPIN_PARITY, /* weights by (Ka, Kc) parity class */
+    MOLQ_TOP_SPIN_C3,     /* symmetric top, 3 nuclei round a C3 axis */
+    MOLQ_TOP_SPIN_TETRA   /* spherical top, 4 nuclei at tetrahedron corners */
+};
+typedef struct molq_top_spin {
+    int kind;    /* MOLQ_TOP_SPIN_* */
+    double w[4]; /* PARITY: weights of ee, eo, oe, oo (conventional) */
+    double n;    /* C3, TETRA: 2I + 1 of the equivalent nuclei */
+} molq_top_spin;
+
+/* Exact rigid top (A >= B >= C, cm^-1) with nuclear-spin statistics
+ * (conventional scale), handing over to the corrected rotor between 30 and
+ * 60 theta_A.  Returns 0, or -1 on allocation failure. */
 int molq_mode_asymtop_init(molq_mode *m, const double *abc, int sigma,
-                           const double *w);
+                           const molq_top_spin *spin);
 
 /* Does the exact top of these constants fit the level budget (J <= 150 up
  * to the hand-over)?  Very prolate or heavy tops do not; they keep the

@@ -127,12 +127,18 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     if (levels && spec->structure == MOLQ_NONLINEAR &&
         spec->rotor == MOLQ_ROTOR_CORRECTED && molq_asymtop_fits(r.rot)) {
         /* the exact top, with spin weights: valid at every T */
-        double w[4], d = 1.0 / spec->sigma;
+        molq_top_spin spin;
+        double d = 1.0 / spec->sigma;
         int k;
+        spin.kind = spec->spin_group == MOLQ_SPIN_GROUP_C3V ? MOLQ_TOP_SPIN_C3
+                    : spec->spin_group == MOLQ_SPIN_GROUP_TD
+                        ? MOLQ_TOP_SPIN_TETRA
+                        : MOLQ_TOP_SPIN_PARITY;
+        spin.n = 2.0 * spec->nuclear_spin + 1.0;
         for (k = 0; k < 4; k++)
-            w[k] = spec->has_top_w ? spec->top_w[k] : d;
+            spin.w[k] = spec->has_top_w ? spec->top_w[k] : d;
         if (molq_mode_asymtop_init(&sp->modes[sp->nmodes], r.rot, spec->sigma,
-                                   w) != 0)
+                                   &spin) != 0)
             return MOLQ_ENOMEM;
         sp->nmodes++;
     } else if (spec->structure != MOLQ_ATOM) {
