@@ -23,7 +23,9 @@
  * Vibration entries may carry "harmonic" (w_i, cm^-1).  anharmonicity:
  * {"x": [[i, j, x_ij], ...], "g": [[i, g_ii], ...],
  *  "alpha": [[i, alpha_A, alpha_B, alpha_C] | [i, alpha], ...]} with mode
- * indices into vibrations (cm^-1). */
+ * indices into vibrations (cm^-1).  Nonlinear molecules: rotational_weights
+ * ({"ee", "eo", "oe", "oo"}: (Ka, Kc) class weights) or rotational_spin
+ * ({"group": "C3v" | "Td", "nuclear_spin": I}). */
 #include <jansson.h>
 #include <stdlib.h>
 #include <string.h>
