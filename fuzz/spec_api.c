@@ -345,6 +345,19 @@ static void polyatomic_op(molq_spec *s, model *m, unsigned sub, fz *f)
         break;
     }
     case 6:
+#ifdef MOLQ_FUZZ_HAVE_molq_spec_set_top_spin_group
+        if (sub & 8u) {
+            /* mostly the two groups and half-integer spins, sometimes
+             * anything */
+            int g = (fz_u8(f) & 1) ? 1 + fz_u8(f) % 2 : fz_int(f);
+            double spin = (fz_u8(f) & 1) ? 0.5 * (fz_u8(f) % 8) : fz_double(f);
+            CHECK(molq_spec_set_top_spin_group(s, (molq_spin_group)g, spin) ==
+                      MOLQ_OK,
+                  "set_top_spin_group");
+            m->has_top_w = 1; /* also selects the levels model */
+            break;
+        }
+#endif
 #ifdef MOLQ_FUZZ_HAVE_molq_spec_set_top_weights
     {
         double w[4];
@@ -561,7 +574,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
         int k, nstate = 0;
         /* Default model as implemented (lib/data/spec.c): level sums when
          * diatomic states, torsions, anharmonic terms or top weights are
-         * given (molq.h mentions only the diatomic states). */
+         * given, top weights or a spin group (molq.h mentions only the
+         * diatomic states). */
         molq_model want = m.has_model ? (molq_model)m.model_code
                           : (m.nstates > 0 || m.ntors > 0 || m.nvterms > 0 ||
                              m.has_top_w)
