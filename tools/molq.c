@@ -29,28 +29,24 @@ enum { CMD_TABLE, CMD_MODES, CMD_LIST, CMD_SPIN, N_CMDS };
 static const char *const cmd_name[N_CMDS] = {"table", "modes", "list",
                                              "spin"};
 
-/* The models of the library, by the names used on the command line and in
- * species files, with the one line the help text gives each.  A new
- * molq_model value needs one new line here and nothing else. */
+/* The models of the library with the one line the help text gives each;
+ * their names come from the library (molq_model_name), as in species
+ * files.  A new molq_model value needs one new line here. */
 static const struct {
     molq_model id;
-    const char *name;
     const char *about;
 } model_table[] = {
-    {MOLQ_MODEL_RRHO, "rrho",
+    {MOLQ_MODEL_RRHO,
      "rigid rotor, harmonic vibrations, electronic level list (fast)"},
-    {MOLQ_MODEL_LEVELS, "levels",
+    {MOLQ_MODEL_LEVELS,
      "sums over levels: diatomic ro-vibrational, hindered rotors"},
 };
 #define N_MODELS (sizeof model_table / sizeof model_table[0])
 
 static const char *model_name(molq_model id)
 {
-    size_t i;
-    for (i = 0; i < N_MODELS; i++)
-        if (model_table[i].id == id)
-            return model_table[i].name;
-    return "unknown";
+    const char *name = molq_model_name(id);
+    return name != NULL ? name : "unknown";
 }
 
 static const char help_head[] =
@@ -144,7 +140,8 @@ static void print_help(FILE *f)
     size_t i;
     fputs(help_head, f);
     for (i = 0; i < N_MODELS; i++)
-        fprintf(f, "  %-10s %s\n", model_table[i].name, model_table[i].about);
+        fprintf(f, "  %-10s %s\n", model_name(model_table[i].id),
+                model_table[i].about);
     fputs("  Default: each species' own model (shown by 'molq list').\n", f);
     fputs(help_tail, f);
 }
@@ -236,7 +233,7 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
     size_t m;
 
     for (m = 0; m < N_MODELS; m++)
-        models[m] = model_table[m].name;
+        models[m] = model_name(model_table[m].id);
 
     o->names = malloc((size_t)(argc > 0 ? argc : 1) * sizeof *o->names);
     if (o->names == NULL) {
@@ -361,7 +358,7 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
     if (given[OPT_MODEL] && given[OPT_COMPARE]) {
         usage_error("options --model and --compare exclude each other (use "
                     "--compare %s,... to include the model%s)",
-                    model_table[o->model].name, "");
+                    model_name(model_table[o->model].id), "");
         return EXIT_USAGE;
     }
     if (!o->help && cmd != CMD_LIST && o->nnames == 0) {
@@ -1195,7 +1192,7 @@ static const molq_species *with_model(const molq_species *base, int m,
                                  sizeof err);
     if (st != MOLQ_OK) {
         fprintf(stderr, "molq: species '%s' cannot use model '%s': %s (%s)\n",
-                molq_species_name(base), model_table[m].name, err,
+                molq_species_name(base), model_name(model_table[m].id), err,
                 molq_status_string(st));
         *owned = NULL;
         return NULL;
