@@ -9,6 +9,27 @@
  * on the conventional scale.  The levels are generated once, sorted, and
  * summed at each T until exp(-E/kT) falls below exp(-CUTOFF).
  *
+ * 2Pi states (a spin-orbit constant A given; Lambda = 1, S = 1/2): J is
+ * half-integer and the rotational term is that of Hill and Van Vleck,
+ *   F(J) = B_v [(J+1/2)^2 - 1 -/+ (1/2) sqrt(4 (J+1/2)^2 + Y (Y - 4))],
+ * Y = A / B_v, B_v = sum_k Y_k1 (v + 1/2)^k; both signs for J >= 3/2 and a
+ * single level B_v (1 - Y/2) at J = 1/2, which belongs to the minus branch
+ * when A > 2 B_v (regular: the lower, Omega = 1/2 ladder; A -> +inf) and
+ * to the plus branch otherwise (inverted: the upper Omega = 1/2 ladder;
+ * A -> -inf).  Large |A| gives the two Hund's case (a) ladders
+ * B[J(J+1) - Omega^2] offset by A; A = 0 gives case (b), B[N(N+1) - 1]
+ * with J = N -/+ 1/2.  G(v) and the l >= 2 Dunham terms (centrifugal
+ * distortion) are added with x = (J+1/2)^2 - 1 in place of J(J+1) (our
+ * choice: the mean of the two case (a) diagonal rotational terms over B;
+ * in case (b) it differs from N(N+1) by about N, i.e. by a relative 1/N
+ * of the small distortion term).
+ * Each level carries (g/2) w (2J + 1): g is the state's degeneracy, spin
+ * times Lambda doubling (4), of which the explicit ladders resolve the
+ * spin, leaving the Lambda doublet, so the two Omega components weigh 4
+ * at high T.  Half-integer J has no even/odd nuclear-spin classes: the
+ * weights must be equal (heteronuclear; validate.c).  Energies are
+ * measured, and D0 counted, from the ground state's lowest level.
+ *
  * Spin isomers: in equilibrium one sum over all levels; frozen, the two
  * nuclear-spin modifications (for the ground state, even and odd J; an
  * excited state whose weights are the ground state's swapped belongs the
