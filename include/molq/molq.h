@@ -372,6 +372,31 @@ MOLQ_API molq_status molq_spec_set_dissociation_energy(molq_spec *spec,
 MOLQ_API molq_status molq_spec_set_spin_isomers_frozen(molq_spec *spec,
                                                        double odd_fraction);
 
+/* Make diatomic state `state` a 2Pi state (Lambda = 1, S = 1/2) with
+ * spin-orbit constant A in cm^-1 (> 0 regular, < 0 inverted; finite, |A| <=
+ * 1e5 cm^-1; 0 gives the pure Hund's case (b) limit).  Its rotational
+ * levels then have half-integer J and the Hill-Van Vleck term values
+ *   F(J) = B_v [(J+1/2)^2 - 1 -/+ (1/2) sqrt(4 (J+1/2)^2 + Y (Y - 4))],
+ * Y = A / B_v, both signs for J >= 3/2 and one level, B_v (1 - Y/2), at
+ * J = 1/2; B_v is the l = 1 Dunham column at v, and G(v) and the l >= 2
+ * terms (centrifugal distortion) are added with x = (J+1/2)^2 - 1 in place
+ * of J(J+1).  The state's degeneracy keeps its meaning, spin times Lambda
+ * doubling: 4 for a 2Pi state (must be even); each level carries half of
+ * it (its Lambda doublet) times 2J + 1, so the two Omega components
+ * together weigh 4 at high T.  Heteronuclear weights only: unequal
+ * rotational weights, or a species with two nuclear-spin modifications,
+ * are refused.  MOLQ_MODEL_RRHO (molq_species_with_model) represents such
+ * a state by two electronic levels of half its degeneracy each, at the
+ * lowest v = 0 level of each of its two ladders.  The value is validated
+ * by molq_species_create (MOLQ_EVALUE naming
+ * 'diatomic_states[i].spin_orbit').  The number is stored in the spec;
+ * nothing is borrowed.  Not thread-safe for concurrent modification of the
+ * same spec.
+ * @return MOLQ_OK or MOLQ_EARG (spec NULL or no such state).
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_spin_orbit(molq_spec *spec, size_t state,
+                                              double a_cm1);
+
 /* Append a hindered internal rotor (torsion) for MOLQ_MODEL_LEVELS:
  * internal-rotation constant F = h/(8 pi^2 c I_red) in cm^-1 (>= 1e-3),
  * internal symmetry number (>= 1, e.g. 3 for a methyl top), and the index

@@ -124,7 +124,8 @@ static const struct {
 
 static const char *const state_keys[] = {
     "label", "Te", "degeneracy", "rotational_weights", "dunham", "we", "wexe",
-    "weye", "weze", "Be", "alpha_e", "gamma_e", "De", "beta_e", "He", NULL};
+    "weye", "weze", "Be", "alpha_e", "gamma_e", "De", "beta_e", "He",
+    "spin_orbit", NULL};
 
 static molq_status read_dunham(molq_json_ctx *c, molq_spec *s, size_t idx, json_t *m,
                                const char *field)
@@ -206,6 +207,12 @@ static molq_status read_state(molq_json_ctx *c, molq_spec *s, json_t *e, size_t 
             (st = molq_json_number(c, json_array_get(v, 1), name, &w[1])) != MOLQ_OK)
             return st;
         molq_spec_set_rotational_weights(s, idx, w[0], w[1]);
+    }
+    if ((v = json_object_get(e, "spin_orbit")) != NULL) {
+        snprintf(name, sizeof name, "%sspin_orbit", where);
+        if ((st = molq_json_number(c, v, name, &x)) != MOLQ_OK)
+            return st;
+        molq_spec_set_spin_orbit(s, idx, x);
     }
     if ((v = json_object_get(e, "label")) != NULL) {
         const char *text;

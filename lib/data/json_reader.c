@@ -12,7 +12,9 @@
  * spin_isomers ("equilibrium" | "frozen"), odd_fraction (number),
  * diatomic_states (array of STATE).
  * STATE keys: label (string), Te (cm^-1, required), degeneracy (integer,
- * default 1), rotational_weights ([even, odd]), and the term values either
+ * default 1), rotational_weights ([even, odd]), spin_orbit (A, cm^-1: makes
+ * the state a 2Pi state with half-integer J, Hill-Van Vleck term values;
+ * degeneracy then 4 = spin x Lambda doubling), and the term values either
  * as named constants we, wexe, weye, weze, Be, alpha_e, gamma_e, De,
  * beta_e, He (cm^-1) or as "dunham": [[Y00, Y01, ...], [Y10, Y11, ...], ...]
  * (row k = power of v + 1/2, column l = power of J(J+1)).

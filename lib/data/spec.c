@@ -102,6 +102,8 @@ void molq_spec_rovib_states(const molq_spec *s, molq_rovib_state *out)
         out[i].w_even = d->has_weights ? d->w_even : 1.0 / s->sigma;
         out[i].w_odd = d->has_weights ? d->w_odd : 1.0 / s->sigma;
         memcpy(out[i].y, d->y, sizeof d->y);
+        out[i].pi = d->has_spin_orbit;
+        out[i].a = d->has_spin_orbit ? d->spin_orbit : 0.0;
     }
 }
 
@@ -182,6 +184,16 @@ molq_status molq_spec_set_spin_isomers_frozen(molq_spec *s,
         return MOLQ_EARG;
     s->spin_frozen = 1;
     s->odd_fraction = odd_fraction;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_spin_orbit(molq_spec *s, size_t state,
+                                     double a_cm1)
+{
+    if (s == NULL || state >= s->nstates)
+        return MOLQ_EARG;
+    s->states[state].spin_orbit = a_cm1;
+    s->states[state].has_spin_orbit = 1;
     return MOLQ_OK;
 }
 

@@ -27,6 +27,8 @@ typedef struct molq_spec_state {
     double y[MOLQ_DUNHAM_K][MOLQ_DUNHAM_L]; /* cm^-1 */
     double w_even, w_odd; /* weights of even / odd rotational levels */
     int has_weights;
+    double spin_orbit; /* A, cm^-1: a 2Pi state when has_spin_orbit */
+    int has_spin_orbit;
 } molq_spec_state;
 
 /* One hindered internal rotor. */

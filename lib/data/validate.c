@@ -14,6 +14,10 @@
         return (code);                                                         \
     } while (0)
 
+/* Largest spin-orbit constant accepted, cm^-1 (above those of diatomics
+ * of the heaviest elements, a few 1e3 to 1e4 cm^-1). */
+#define MAX_SPIN_ORBIT 1e5
+
 static const size_t rot_count[3] = {0, 1, 3};
 static const char *const structure_name[3] = {"atom", "linear", "nonlinear"};
 
@@ -81,8 +85,33 @@ static molq_status validate_states(const molq_spec *s, char *err,
             FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
                  "rotational_weights': must be two finite numbers >= 0, not "
                  "both 0 (got %g, %g)", nm, i, d->w_even, d->w_odd);
+        if (d->has_spin_orbit) {
+            if (!isfinite(d->spin_orbit) || fabs(d->spin_orbit) > MAX_SPIN_ORBIT)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
+                     "spin_orbit': must be a finite number of at most %g "
+                     "cm^-1 in size (got %g)", nm, i, MAX_SPIN_ORBIT,
+                     d->spin_orbit);
+            if (d->g % 2 != 0)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
+                     "degeneracy': a 2Pi state (with 'spin_orbit') counts its "
+                     "two spin components, so its degeneracy must be even (4 "
+                     "for spin x Lambda doubling; got %d)", nm, i, d->g);
+            if (d->has_weights && d->w_even != d->w_odd)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
+                     "spin_orbit': a 2Pi state has half-integer J, for which "
+                     "even/odd 'rotational_weights' are not defined; give "
+                     "equal weights or none (got %g, %g)", nm, i, d->w_even,
+                     d->w_odd);
+        }
     }
     molq_spec_rovib_states(s, st);
+    if (molq_rovib_has_isomers(st))
+        for (i = 0; i < s->nstates; i++)
+            if (s->states[i].has_spin_orbit)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
+                     "spin_orbit': 2Pi states are supported only without "
+                     "nuclear-spin modifications, and the ground state's "
+                     "'rotational_weights' make two", nm, i);
     if (!ground || s->states[0].te != 0.0)
         FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[0].Te': the "
              "first state is the ground state, Te = 0", nm);

@@ -39,11 +39,24 @@ typedef struct molq_rotation_params {
 #define MOLQ_DUNHAM_L 4 /* powers of J(J+1): 0 .. 3 */
 
 /* One electronic state of a diatomic, as the level generator needs it
- * (cm^-1; weights on the conventional scale). */
+ * (cm^-1; weights on the conventional scale).  pi = 1 makes it a 2Pi state
+ * with spin-orbit constant a (Hill-Van Vleck term values, half-integer J;
+ * see rovibronic.c); g is then the total electronic degeneracy (4 for a
+ * 2Pi state: two spin components x Lambda doubling), of which each
+ * rotational level carries g / 2. */
 typedef struct molq_rovib_state {
     double te, g, w_even, w_odd;
     double y[MOLQ_DUNHAM_K][MOLQ_DUNHAM_L];
+    int pi;
+    double a;
 } molq_rovib_state;
+
+/* Energy (cm^-1, Te included) of the lowest v = 0 level of each of the
+ * two rotational ladders of a 2Pi state: lo[0] of the lower ladder, lo[1]
+ * of the upper one (for a regular state the Omega = 1/2 and 3/2 ladders,
+ * for an inverted one the other way round).  For a Sigma-like state both
+ * receive the v = 0, J = 0 term. */
+void molq_rovib_ladder_minima(const molq_rovib_state *s, double lo[2]);
 
 /* Does the ground state (st[0]) have two nuclear-spin modifications
  * (both parity weights > 0 and different, as for H2 or 14N2)?  Otherwise
@@ -137,7 +150,8 @@ void molq_mode_electronic_init(molq_mode *m, size_t n, const double *theta,
                                const double *g);
 
 /* Walk the bound ro-vibrational levels of n states below d0 (cm^-1 above
- * the ground state's v = 0, J = 0 term): each vibrational ladder stops at
+ * the ground state's lowest level: v = 0, J = 0 of a Sigma-like state, the
+ * lowest v = 0 level of a 2Pi one): each vibrational ladder stops at
  * d0 or where it turns over, each rotational ladder likewise.  Returns the
  * number of levels with non-zero weight, or (size_t)-1 as soon as it
  * exceeds `limit`.  *empty receives the index of a state with no bound

@@ -9,6 +9,27 @@
  * on the conventional scale.  The levels are generated once, sorted, and
  * summed at each T until exp(-E/kT) falls below exp(-CUTOFF).
  *
+ * 2Pi states (a spin-orbit constant A given; Lambda = 1, S = 1/2): J is
+ * half-integer and the rotational term is that of Hill and Van Vleck,
+ *   F(J) = B_v [(J+1/2)^2 - 1 -/+ (1/2) sqrt(4 (J+1/2)^2 + Y (Y - 4))],
+ * Y = A / B_v, B_v = sum_k Y_k1 (v + 1/2)^k; both signs for J >= 3/2 and a
+ * single level B_v (1 - Y/2) at J = 1/2, which belongs to the minus branch
+ * when A > 2 B_v (regular: the lower, Omega = 1/2 ladder; A -> +inf) and
+ * to the plus branch otherwise (inverted: the upper Omega = 1/2 ladder;
+ * A -> -inf).  Large |A| gives the two Hund's case (a) ladders
+ * B[J(J+1) - Omega^2] offset by A; A = 0 gives case (b), B[N(N+1) - 1]
+ * with J = N -/+ 1/2.  G(v) and the l >= 2 Dunham terms (centrifugal
+ * distortion) are added with x = (J+1/2)^2 - 1 in place of J(J+1) (our
+ * choice: the mean of the two case (a) diagonal rotational terms over B;
+ * in case (b) it differs from N(N+1) by about N, i.e. by a relative 1/N
+ * of the small distortion term).
+ * Each level carries (g/2) w (2J + 1): g is the state's degeneracy, spin
+ * times Lambda doubling (4), of which the explicit ladders resolve the
+ * spin, leaving the Lambda doublet, so the two Omega components weigh 4
+ * at high T.  Half-integer J has no even/odd nuclear-spin classes: the
+ * weights must be equal (heteronuclear; validate.c).  Energies are
+ * measured, and D0 counted, from the ground state's lowest level.
+ *
  * Spin isomers: in equilibrium one sum over all levels; frozen, the two
  * nuclear-spin modifications (for the ground state, even and odd J; an
  * excited state whose weights are the ground state's swapped belongs the
@@ -66,17 +87,123 @@ static double term(const molq_rovib_state *s, double vh, double x)
     return e;
 }
 
+/* Column l of the Dunham expansion at v + 1/2 = vh: l = 0 gives G(v),
+ * l = 1 gives B_v. */
+static double column(const molq_rovib_state *s, int l, double vh)
+{
+    double e = 0.0, vk = 1.0;
+    int k;
+    for (k = 0; k < MOLQ_DUNHAM_K; k++) {
+        e += s->y[k][l] * vk;
+        vk *= vh;
+    }
+    return e;
+}
+
+/* Term value of a 2Pi level at x = (J + 1/2)^2 - 1 on the branch of sign
+ * sgn (-1 or +1) of the Hill-Van Vleck formula, Te and G(v) included.
+ * B_v [x -/+ (1/2) sqrt(4 (J + 1/2)^2 + Y (Y - 4))] with Y = A / B_v is
+ * written as B_v x -/+ (1/2) sqrt(4 B_v^2 x + (A - 2 B_v)^2) (the same
+ * number: 4 (x + 1) + Y^2 - 4Y = 4x + (Y - 2)^2), which needs no division
+ * by B_v and has a radicand >= 0 for every x >= 0. */
+static double pi_term(const molq_rovib_state *s, double vh, double x, int sgn)
+{
+    double b = column(s, 1, vh), xl = x, d = s->a - 2.0 * b;
+    double e = s->te + column(s, 0, vh) + b * x +
+               sgn * 0.5 * sqrt(4.0 * b * b * x + d * d);
+    int l;
+    for (l = 2; l < MOLQ_DUNHAM_L; l++) {
+        xl *= x;
+        e += column(s, l, vh) * xl;
+    }
+    return e;
+}
+
+/* The branch (-1 or +1) that holds the single J = 1/2 level at v + 1/2 =
+ * vh: there the formula gives B_v - A/2 = -/+ (1/2)|A - 2 B_v|, i.e. the
+ * minus branch when A > 2 B_v (regular, the lower Omega = 1/2 ladder),
+ * else the plus branch (inverted: the upper Omega = 1/2 ladder). */
+static int half_branch(const molq_rovib_state *s, double vh)
+{
+    return s->a > 2.0 * column(s, 1, vh) ? -1 : 1;
+}
+
+void molq_rovib_ladder_minima(const molq_rovib_state *s, double lo[2])
+{
+    int br;
+    if (!s->pi) {
+        lo[0] = lo[1] = term(s, 0.5, 0.0);
+        return;
+    }
+    for (br = 0; br < 2; br++) {
+        int sgn = br ? 1 : -1;
+        /* J = 3/2 (x = 3), and J = 1/2 (x = 0) where it belongs */
+        double e = pi_term(s, 0.5, 3.0, sgn);
+        if (half_branch(s, 0.5) == sgn) {
+            double e1 = pi_term(s, 0.5, 0.0, sgn);
+            if (e1 < e)
+                e = e1;
+        }
+        lo[br] = e;
+    }
+}
+
 typedef struct sink {
     double *theta[2], *w[2];
     size_t n[2], count, limit;
 } sink;
 
+/* Store one level (when the sink has arrays) into list par. */
+static int put(sink *out, int par, double e, double weight)
+{
+    if (out->count >= out->limit)
+        return -1;
+    if (out->theta[0] != NULL) {
+        out->theta[par][out->n[par]] = MOLQ_C2_CM_K * e;
+        out->w[par][out->n[par]] = weight;
+    }
+    out->n[par]++;
+    out->count++;
+    return 0;
+}
+
+/* The rotational levels of one vibrational level v of a 2Pi state: both
+ * branches, J = 1/2 only on the branch that holds it, each branch up to
+ * d0 or its turning point.  Half-integer J has no even/odd parity in the
+ * sense of the nuclear-spin weights (validation requires w_even = w_odd),
+ * so every level goes to list 0 with weight (g/2) w (2J + 1). */
+static int walk_pi(const molq_rovib_state *s, unsigned v, double e0,
+                   double d0, sink *out)
+{
+    double vh = v + 0.5;
+    int half = half_branch(s, vh), br;
+    for (br = 0; br < 2; br++) {
+        int sgn = br ? 1 : -1;
+        double eprev = -HUGE_VAL;
+        unsigned j; /* J = j + 1/2 */
+        for (j = (sgn == half) ? 0u : 1u; j < MAX_J; j++) {
+            double jh = j + 1.0; /* J + 1/2 */
+            double e = pi_term(s, vh, jh * jh - 1.0, sgn) - e0;
+            if (!(e < d0) || e <= eprev)
+                break;
+            eprev = e;
+            if (s->w_even <= 0.0)
+                continue;
+            if (put(out, 0, e, 0.5 * s->g * s->w_even * 2.0 * jh) != 0)
+                return -1;
+        }
+    }
+    return 0;
+}
+
 /* Walk all bound levels; store them when the sink has arrays. */
 static int walk(const molq_rovib_state *st, size_t n, double d0, sink *out,
                 size_t *empty)
 {
-    double e0 = term(&st[0], 0.5, 0.0) - st[0].te;
+    double lo[2], e0;
     size_t i;
+    molq_rovib_ladder_minima(&st[0], lo);
+    e0 = (lo[0] < lo[1] ? lo[0] : lo[1]) - st[0].te;
     *empty = n;
     for (i = 0; i < n; i++) {
         const molq_rovib_state *s = &st[i];
@@ -90,6 +217,11 @@ static int walk(const molq_rovib_state *st, size_t n, double d0, sink *out,
             if (!(g < d0) || g <= gprev)
                 break;
             gprev = g;
+            if (s->pi) {
+                if (walk_pi(s, v, e0, d0, out) != 0)
+                    return -1;
+                continue;
+            }
             for (J = 0; J < MAX_J; J++) {
                 double x = (double)J * (J + 1.0);
                 double e = term(s, v + 0.5, x) - e0;
@@ -100,14 +232,8 @@ static int walk(const molq_rovib_state *st, size_t n, double d0, sink *out,
                 eprev = e;
                 if (w <= 0.0)
                     continue;
-                if (out->count >= out->limit)
+                if (put(out, par, e, s->g * w * (2.0 * J + 1.0)) != 0)
                     return -1;
-                if (out->theta[0] != NULL) {
-                    out->theta[par][out->n[par]] = MOLQ_C2_CM_K * e;
-                    out->w[par][out->n[par]] = s->g * w * (2.0 * J + 1.0);
-                }
-                out->n[par]++;
-                out->count++;
             }
         }
         if (out->count == before && *empty == n)

@@ -25,7 +25,9 @@ static double dunham_column(const molq_spec_state *st, int l, double vh)
 
 /* RRHO inputs: explicit ones from the spec, or derived from the diatomic
  * states (B0 and G(1) - G(0) of the ground state; each state's v = 0 level
- * as an electronic level whose degeneracy folds in its spin weights). */
+ * as an electronic level whose degeneracy folds in its spin weights; a 2Pi
+ * state gives two, the lowest v = 0 level of each of its ladders, with
+ * half its degeneracy each), measured from the ground state's lowest. */
 typedef struct rrho_inputs {
     double rot[3];
     size_t nrot;
@@ -62,6 +64,9 @@ static void rrho_inputs_of(const molq_spec *spec, int levels,
     if (derive_vib(spec))
         r->nvib = 1;
     r->nel = spec->nel > 0 ? spec->nel : derive_el(spec) ? spec->nstates : 1;
+    if (spec->nel == 0 && derive_el(spec))
+        for (i = 0; i < spec->nstates; i++)
+            r->nel += spec->states[i].has_spin_orbit != 0;
 }
 
 static void fill_rrho_arrays(const molq_spec *spec, int levels, double *vt,
@@ -88,12 +93,21 @@ static void fill_rrho_arrays(const molq_spec *spec, int levels, double *vt,
         }
     } else if (derive_el(spec)) {
         molq_rovib_state st[MOLQ_MAX_STATES];
+        double lo[2], zero;
+        size_t e = 0;
         molq_spec_rovib_states(spec, st);
+        molq_rovib_ladder_minima(&st[0], lo);
+        zero = lo[0] < lo[1] ? lo[0] : lo[1];
         for (i = 0; i < spec->nstates; i++) {
-            et[i] = MOLQ_C2_CM_K * (st[i].te +
-                                    dunham_column(&spec->states[i], 0, 0.5) -
-                                    dunham_column(x, 0, 0.5));
-            eg[i] = st[i].g * spec->sigma * 0.5 * (st[i].w_even + st[i].w_odd);
+            double g = st[i].g * spec->sigma * 0.5 *
+                       (st[i].w_even + st[i].w_odd);
+            molq_rovib_ladder_minima(&st[i], lo);
+            et[e] = MOLQ_C2_CM_K * (lo[0] - zero);
+            eg[e++] = st[i].pi ? 0.5 * g : g;
+            if (st[i].pi) { /* the other ladder: the other Omega */
+                et[e] = MOLQ_C2_CM_K * (lo[1] - zero);
+                eg[e++] = 0.5 * g;
+            }
         }
     } else {
         et[0] = 0.0;

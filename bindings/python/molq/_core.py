@@ -77,7 +77,7 @@ _NAMED_CONSTANTS = {
     "He": (0, 3, 1.0),
 }
 _STATE_KEYS = ("label", "Te", "degeneracy", "rotational_weights",
-               "dunham") + tuple(_NAMED_CONSTANTS)
+               "dunham", "spin_orbit") + tuple(_NAMED_CONSTANTS)
 _DUNHAM_ROWS, _DUNHAM_COLS = 6, 4  # powers of (v + 1/2), of J(J+1)
 
 
@@ -313,7 +313,10 @@ class Species:
                 ``"dunham"``: rows of Y_kl (row k = power of v + 1/2, at
                 most 6; column l = power of J(J+1), at most 4), and
                 ``"rotational_weights"``: ``[even, odd]`` nuclear-spin
-                weights of even- and odd-J levels (H2: [0.25, 0.75]).
+                weights of even- and odd-J levels (H2: [0.25, 0.75]), and
+                ``"spin_orbit"``: A in cm^-1, which makes the state a 2Pi
+                state (Hill-Van Vleck levels, half-integer J; degeneracy
+                4).
             dissociation_energy: D0 of the ground state from its lowest
                 level, cm^-1 (required by the levels model).
             spin_isomers: ``"equilibrium"`` (default) or ``"frozen"``: even-
@@ -791,6 +794,10 @@ def _add_diatomic_state(spec, i, state, check):
         check(_L.molq_spec_set_rotational_weights(spec, idx, float(w[0]),
                                                   float(w[1])),
               field + ".rotational_weights")
+    if "spin_orbit" in state:
+        check(_L.molq_spec_set_spin_orbit(spec, idx,
+                                          float(state["spin_orbit"])),
+              field + ".spin_orbit")
 
 
 def _pairs(items, field):

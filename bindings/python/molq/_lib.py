@@ -114,6 +114,7 @@ _PROTOTYPES = [
     ("molq_spec_set_rotational_weights", _int, [_ptr, _size, _dbl, _dbl]),
     ("molq_spec_set_dissociation_energy", _int, [_ptr, _dbl]),
     ("molq_spec_set_spin_isomers_frozen", _int, [_ptr, _dbl]),
+    ("molq_spec_set_spin_orbit", _int, [_ptr, _size, _dbl]),
     ("molq_species_create", _int, [_ptr, _c.POINTER(_ptr), _c.c_char_p,
                                    _size]),
     ("molq_species_with_model", _int, [_ptr, _int, _c.POINTER(_ptr),

@@ -39,6 +39,12 @@ HETERO_STATES = [
     {"Te": 15000.5, "degeneracy": 4,
      "dunham": [[0.0, 1.6], [1700.0, -0.02], [-11.0]]},
 ]
+PI_STATES = [
+    {"label": "X 2Pi (invented)", "Te": 0, "degeneracy": 4,
+     "spin_orbit": -95.0, "we": 2900.0, "wexe": 60.0, "Be": 12.0,
+     "alpha_e": 0.5, "De": 0.001},
+    {"Te": 21000.0, "degeneracy": 2, "we": 2500.0, "Be": 11.0},
+]
 
 SPECIES = [
     # (file entry, from_constants keyword arguments)
@@ -71,6 +77,11 @@ SPECIES = [
      dict(structure="linear", molar_mass=20.25, rotational_constants=[1.85],
           vibrations=[2010.0], model="rrho", dissociation_energy=50000,
           diatomic_states=HETERO_STATES[:1])),
+    # A 2Pi ground state (spin-orbit constant) above a Sigma state.
+    ({"name": "demo-pi", "molar_mass": 30.5, "structure": "linear",
+      "dissociation_energy": 50000, "diatomic_states": PI_STATES},
+     dict(structure="linear", molar_mass=30.5, dissociation_energy=50000,
+          diatomic_states=PI_STATES)),
 ]
 
 
@@ -220,7 +231,8 @@ class FromConstantsDiatomic(unittest.TestCase):
         self.assertEqual(models, {"demo-homo": "levels",
                                   "demo-frozen": "levels",
                                   "demo-hetero": "levels",
-                                  "demo-both": "rrho"})
+                                  "demo-both": "rrho",
+                                  "demo-pi": "levels"})
 
     def test_level_sum_against_hand_sum(self):
         # One electronic state with only Be and we: the level sum is the
