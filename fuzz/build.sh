@@ -84,7 +84,8 @@ python3 tools/embed_json.py data/species.json "$B/builtin_data.c"
 # Public functions that may not exist yet in every checkout: the targets
 # call them only when molq.h declares them.
 FEATURES=""
-for f in molq_spec_set_top_weights molq_spec_set_top_spin_group; do
+for f in molq_spec_set_top_weights molq_spec_set_top_spin_group \
+         molq_spec_set_spin_orbit; do
     grep -q "$f(" include/molq/molq.h && FEATURES="$FEATURES -DMOLQ_FUZZ_HAVE_$f"
 done
 

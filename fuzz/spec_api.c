@@ -214,6 +214,19 @@ static void levels_op(molq_spec *s, model *m, unsigned sub, fz *f)
               "set_dissociation_energy");
         break;
     case 5:
+#ifdef MOLQ_FUZZ_HAVE_molq_spec_set_spin_orbit
+        if (sub & 8u) {
+            /* a 2Pi state: plausible A (NO-like, scaled) or anything */
+            size_t state = fz_u8(f) % 40;
+            double a = (fz_u8(f) & 1) ? 12.0 * (fz_u8(f) - 128.0)
+                                      : fz_double(f);
+            st = molq_spec_set_spin_orbit(s, state, a);
+            CHECK(st == (state < m->nstates ? MOLQ_OK : MOLQ_EARG),
+                  "set_spin_orbit(%zu) with %zu states returned %d", state,
+                  m->nstates, (int)st);
+            break;
+        }
+#endif
         CHECK(molq_spec_set_spin_isomers_frozen(s, fz_double(f)) == MOLQ_OK,
               "set_spin_isomers_frozen");
         break;
