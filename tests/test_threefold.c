@@ -239,8 +239,8 @@ START_TEST(bad_input)
          "rotational_spin.spin", MOLQ_EKEY},
         {"\"symmetry_number\": 3, \"rotational_constants\": [5, 5, 4],"
          " \"rotational_spin\": {\"group\": \"C3v\", \"nuclear_spin\": 0.5},"
-         " \"rotational_weights\": {\"ee\": 1, \"eo\": 1, \"oe\": 1,"
-         " \"oo\": 1}",
+         " \"rotational_weights\": {\"ee\": 0.5, \"eo\": 0.25,"
+         " \"oe\": 0.25, \"oo\": 0.3333333333333333}",
          "rotational_spin", MOLQ_EVALUE},
     };
     size_t i;

@@ -145,6 +145,27 @@ START_TEST(low_temperature_water)
 }
 END_TEST
 
+/* Class weights that do not average to 1/sigma cannot meet the corrected
+ * rotor at high T (each class holds a quarter of the levels there): refused,
+ * naming the field (found by fuzzing as a negative cp in the hand-over). */
+START_TEST(weights_must_average_to_inverse_sigma)
+{
+    static const char *const bad =
+        "{\"species\": [{\"name\": \"t\", \"molar_mass\": 20,"
+        " \"structure\": \"nonlinear\", \"rotational_constants\": [12, 8, 5],"
+        " \"rotational_weights\": {\"ee\": 1e-30, \"eo\": 1, \"oe\": 0.03,"
+        " \"oo\": 9.285}}]}";
+    char err[256];
+    molq_db *db = NULL;
+    ck_assert_int_eq(molq_db_read_string(bad, strlen(bad), &db, err,
+                                         sizeof err),
+                     MOLQ_EVALUE);
+    ck_assert_ptr_null(db);
+    ck_assert_ptr_nonnull(strstr(err, "'rotational_weights'"));
+    ck_assert_ptr_nonnull(strstr(err, "1/symmetry_number"));
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("top");
@@ -153,6 +174,7 @@ int main(void)
     tcase_add_test(tc, symmetric_top_exact);
     tcase_add_test(tc, asymmetric_top_low_levels);
     tcase_add_test(tc, low_temperature_water);
+    tcase_add_test(tc, weights_must_average_to_inverse_sigma);
     suite_add_tcase(s, tc);
     return tu_run(s);
 }

@@ -446,7 +446,9 @@ MOLQ_API molq_status molq_spec_add_rotation_vibration(molq_spec *spec,
 /* Nuclear-spin weights of a nonlinear molecule's rotational levels by the
  * parity class of (Ka, Kc): ee, eo, oe, oo, on the conventional scale
  * (water: 1/4, 3/4, 3/4, 1/4; the default 1/sigma for each class is the
- * high-temperature limit).  Used by the exact rigid-top levels of
+ * high-temperature limit).  The four must average to 1/sigma (each class
+ * holds a quarter of the levels at high T), else molq_species_create
+ * refuses them (MOLQ_EVALUE).  Used by the exact rigid-top levels of
  * MOLQ_MODEL_LEVELS, which replace the corrected rotor (and its lower
  * temperature limit) for nonlinear molecules in that model.
  * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */

@@ -337,9 +337,17 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
             if (!isfinite(s->top_w[i]) || s->top_w[i] < 0.0)
                 FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_weights': "
                      "must be finite numbers >= 0 (got %g)", nm, s->top_w[i]);
-        if (s->top_w[0] + s->top_w[1] + s->top_w[2] + s->top_w[3] <= 0.0)
-            FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_weights': not "
-                 "all zero", nm);
+        {
+            /* each class holds a quarter of the levels at high T, where the
+             * exact top must meet the corrected rotor's 1/sigma */
+            double mean = 0.25 * (s->top_w[0] + s->top_w[1] + s->top_w[2] +
+                                  s->top_w[3]);
+            if (fabs(mean * s->sigma - 1.0) > 1e-6)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_weights': "
+                     "the four class weights must average to "
+                     "1/symmetry_number = %g on the conventional scale (got "
+                     "mean %g)", nm, 1.0 / s->sigma, mean);
+        }
     }
     if (s->nrot == 3 && !(s->rot[0] >= s->rot[1] && s->rot[1] >= s->rot[2]))
         FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants': must be "
