@@ -105,6 +105,8 @@ static const bench_species SPECIES[] = {
     {"CO2", "CO2", MOLQ_MODEL_RRHO, 1, 3, {1333.0, 667.0, 2349.0}, {1, 2, 1}},
     {"CO2-lev", "CO2", MOLQ_MODEL_LEVELS, 1, 3, {1333.0, 667.0, 2349.0},
      {1, 2, 1}},
+    /* a 2Pi ground state: both Hill-Van Vleck ladders in one level table */
+    {"NO-lev", "NO", MOLQ_MODEL_LEVELS, 1, 1, {1876.05}, {1}},
 };
 #define NSPECIES (sizeof SPECIES / sizeof SPECIES[0])
 
