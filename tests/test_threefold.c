@@ -279,10 +279,19 @@ START_TEST(bad_input)
                          MOLQ_EVALUE);
         ck_assert_ptr_null(sp);
         ck_assert_ptr_nonnull(strstr(err, "nuclear_spin"));
-        molq_spec_set_top_spin_group(spec, (molq_spin_group)7, 0.5);
-        ck_assert_int_eq(molq_species_create(spec, &sp, err, sizeof err),
-                         MOLQ_EVALUE);
-        ck_assert_ptr_nonnull(strstr(err, "rotational_spin.group"));
+        {
+            /* 0 is no group, not "none given" (found by fuzzing) */
+            const int bad_groups[] = {7, 0, -1};
+            size_t k;
+            for (k = 0; k < 3; k++) {
+                molq_spec_set_top_spin_group(
+                    spec, (molq_spin_group)bad_groups[k], 0.5);
+                ck_assert_int_eq(
+                    molq_species_create(spec, &sp, err, sizeof err),
+                    MOLQ_EVALUE);
+                ck_assert_ptr_nonnull(strstr(err, "rotational_spin.group"));
+            }
+        }
         molq_spec_set_top_spin_group(spec, MOLQ_SPIN_GROUP_TD, 0.5);
         ck_assert_int_eq(molq_species_create(spec, &sp, err, sizeof err),
                          MOLQ_OK);

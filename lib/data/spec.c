@@ -112,7 +112,7 @@ molq_model molq_spec_default_model(const molq_spec *s)
     if (s->has_model)
         return (molq_model)s->model;
     return (s->nstates > 0 || s->ntorsions > 0 || s->nvterms > 0 ||
-            s->has_top_w || s->spin_group != 0)
+            s->has_top_w || s->has_spin_group)
                ? MOLQ_MODEL_LEVELS
                : MOLQ_MODEL_RRHO;
 }
@@ -486,6 +486,7 @@ molq_status molq_spec_set_top_spin_group(molq_spec *s, molq_spin_group group,
     if (s == NULL)
         return MOLQ_EARG;
     s->spin_group = (int)group;
+    s->has_spin_group = 1;
     s->nuclear_spin = nuclear_spin;
     return MOLQ_OK;
 }

@@ -81,7 +81,8 @@ struct molq_spec_s {
     size_t nvterms;
     double top_w[4]; /* spin weights of (Ka, Kc) classes ee, eo, oe, oo */
     int has_top_w;
-    int spin_group;      /* molq_spin_group, 0 if none */
+    int spin_group;      /* molq_spin_group */
+    int has_spin_group;
     double nuclear_spin; /* of the nuclei the spin group exchanges */
     int spin_frozen;     /* 1: frozen even/odd mixture, 0: equilibrium */
     double odd_fraction; /* frozen: mole fraction in odd-J levels */

@@ -353,7 +353,7 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
         FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_constants': must be "
              "ordered A >= B >= C (got %g, %g, %g)", nm, s->rot[0], s->rot[1],
              s->rot[2]);
-    if (s->spin_group != 0) {
+    if (s->has_spin_group) {
         int c3 = s->spin_group == MOLQ_SPIN_GROUP_C3V;
         if (!c3 && s->spin_group != MOLQ_SPIN_GROUP_TD)
             FAIL(MOLQ_EVALUE, "species '%s': field 'rotational_spin.group': "
