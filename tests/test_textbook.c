@@ -94,26 +94,13 @@ START_TEST(high_temperature_limits)
 }
 END_TEST
 
-static size_t mode_index(const molq_species *sp, molq_mode_kind kind)
-{
-    size_t i;
-    for (i = 0; i < molq_species_mode_count(sp); i++) {
-        molq_mode_kind k;
-        ck_assert_int_eq(molq_species_mode_kind(sp, i, &k), MOLQ_OK);
-        if (k == kind)
-            return i;
-    }
-    ck_abort_msg("mode not found");
-    return 0;
-}
-
 /* Einstein function: a harmonic mode of temperature Theta has
  * cv/R = x^2 e^x / (e^x - 1)^2, u/RT = x/(e^x - 1),
  * s/R = x/(e^x - 1) - ln(1 - e^-x). */
 START_TEST(harmonic_mode_curves)
 {
     const molq_species *sp = tu_species_model("N2", MOLQ_MODEL_RRHO);
-    size_t iv = mode_index(sp, MOLQ_MODE_VIBRATION);
+    size_t iv = tu_mode_index(sp, MOLQ_MODE_VIBRATION);
     double theta = T_C2 * 2329.915; /* N2 fundamental in data/species.json */
     double T;
     for (T = 20.0; T < 2e5; T *= 1.3) {
@@ -139,7 +126,7 @@ END_TEST
 START_TEST(linear_rotor_exact_sum)
 {
     const molq_species *sp = demo_sp("lin");
-    size_t ir = mode_index(sp, MOLQ_MODE_ROTATION);
+    size_t ir = tu_mode_index(sp, MOLQ_MODE_ROTATION);
     double theta = T_C2 * 1.5, T;
     for (T = 0.3; T < 3000.0; T *= 1.17) {
         double q = 0, e1 = 0, lnq, u;
@@ -169,7 +156,7 @@ START_TEST(symmetric_top_correction)
         " \"structure\": \"nonlinear\", \"rotational_constants\": [5, 1, 1]}]}";
     molq_db *db;
     const molq_species *sp = tu_from_json(js, &db);
-    size_t ir = mode_index(sp, MOLQ_MODE_ROTATION);
+    size_t ir = tu_mode_index(sp, MOLQ_MODE_ROTATION);
     double tA = 5 * T_C2, tB = T_C2, T;
     double mult[] = {1.0, 2.0, 5.0, 20.0};
     size_t i;
@@ -205,7 +192,7 @@ END_TEST
 START_TEST(classical_rotor_formula)
 {
     const molq_species *sp = demo_sp("linc");
-    size_t ir = mode_index(sp, MOLQ_MODE_ROTATION);
+    size_t ir = tu_mode_index(sp, MOLQ_MODE_ROTATION);
     double theta = T_C2 * 1.5, T;
     for (T = 1.0; T < 1e5; T *= 3.7) {
         double s, cv;

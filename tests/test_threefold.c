@@ -26,23 +26,10 @@
 
 #include "testutil.h"
 
-static size_t rot_index(const molq_species *sp)
-{
-    size_t i;
-    for (i = 0; i < molq_species_mode_count(sp); i++) {
-        molq_mode_kind k;
-        molq_species_mode_kind(sp, i, &k);
-        if (k == MOLQ_MODE_ROTATION)
-            return i;
-    }
-    ck_abort_msg("no rotation mode");
-    return 0;
-}
-
 static double rot_prop(const molq_species *sp, double T, molq_property p)
 {
     double v;
-    ck_assert_int_eq(molq_eval_mode(sp, rot_index(sp), T, 1e5, p, &v),
+    ck_assert_int_eq(molq_eval_mode(sp, tu_mode_index(sp, MOLQ_MODE_ROTATION), T, 1e5, p, &v),
                      MOLQ_OK);
     return v;
 }

@@ -14,23 +14,10 @@
 
 #include "testutil.h"
 
-static size_t rot_index(const molq_species *sp)
-{
-    size_t i;
-    for (i = 0; i < molq_species_mode_count(sp); i++) {
-        molq_mode_kind k;
-        molq_species_mode_kind(sp, i, &k);
-        if (k == MOLQ_MODE_ROTATION)
-            return i;
-    }
-    ck_abort_msg("no rotation mode");
-    return 0;
-}
-
 static double rot_lnq(const molq_species *sp, double T)
 {
     double v;
-    ck_assert_int_eq(molq_eval_mode(sp, rot_index(sp), T, 1e5, MOLQ_LNQ, &v),
+    ck_assert_int_eq(molq_eval_mode(sp, tu_mode_index(sp, MOLQ_MODE_ROTATION), T, 1e5, MOLQ_LNQ, &v),
                      MOLQ_OK);
     return v;
 }
@@ -137,7 +124,7 @@ START_TEST(low_temperature_water)
      * conventional scale is R ln(1/4) */
     {
         double s;
-        ck_assert_int_eq(molq_eval_mode(h2o, rot_index(h2o), 1.0, 1e5, MOLQ_S,
+        ck_assert_int_eq(molq_eval_mode(h2o, tu_mode_index(h2o, MOLQ_MODE_ROTATION), 1.0, 1e5, MOLQ_S,
                                         &s),
                          MOLQ_OK);
         ck_assert_close(s, T_R * log(0.25), 1e-9, 0.0);

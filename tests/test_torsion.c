@@ -32,19 +32,6 @@ static const char *const js =
     " \"torsions\": [{\"rotational_constant\": 5, \"symmetry_number\": 3,"
     " \"barrier\": [{\"n\": 3, \"V\": 20000}]}]}]}";
 
-static size_t torsion_index(const molq_species *sp)
-{
-    size_t i;
-    for (i = 0; i < molq_species_mode_count(sp); i++) {
-        molq_mode_kind k;
-        molq_species_mode_kind(sp, i, &k);
-        if (k == MOLQ_MODE_TORSION)
-            return i;
-    }
-    ck_abort_msg("no torsion mode");
-    return 0;
-}
-
 /* ln q, u/RT and cv/R of a level list (cm^-1), lowest level as zero. */
 static void level_sum(const double *e, size_t n, double T, double sigma,
                       double out[3])
@@ -65,7 +52,7 @@ static void level_sum(const double *e, size_t n, double T, double sigma,
 static void check_mode(const molq_species *sp, double T, const double ref[3],
                        double tol)
 {
-    size_t it = torsion_index(sp);
+    size_t it = tu_mode_index(sp, MOLQ_MODE_TORSION);
     double lnq, u, cv;
     ck_assert_int_eq(molq_eval_mode(sp, it, T, 1e5, MOLQ_LNQ, &lnq), MOLQ_OK);
     ck_assert_int_eq(molq_eval_mode(sp, it, T, 1e5, MOLQ_U, &u), MOLQ_OK);

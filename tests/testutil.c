@@ -76,6 +76,20 @@ const molq_species *tu_from_json(const char *json, molq_db **db)
     return molq_db_species(*db, 0);
 }
 
+size_t tu_mode_index(const molq_species *sp, molq_mode_kind kind)
+{
+    size_t i;
+    for (i = 0; i < molq_species_mode_count(sp); i++) {
+        molq_mode_kind k;
+        ck_assert_int_eq(molq_species_mode_kind(sp, i, &k), MOLQ_OK);
+        if (k == kind)
+            return i;
+    }
+    ck_abort_msg("%s has no %s mode", molq_species_name(sp),
+                 molq_mode_kind_name(kind));
+    return 0;
+}
+
 int tu_close(double a, double b, double rel, double floor)
 {
     double scale = fmax(fmax(fabs(a), fabs(b)), floor);

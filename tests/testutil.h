@@ -35,6 +35,9 @@ double tu_eval(const molq_species *sp, double T, double p, molq_property prop);
  * returned so the caller frees it. */
 const molq_species *tu_from_json(const char *json, molq_db **db);
 
+/* Index of the species' first mode of this kind (fails the test if none). */
+size_t tu_mode_index(const molq_species *sp, molq_mode_kind kind);
+
 /* |a - b| <= tol * max(|a|, |b|, floor) */
 int tu_close(double a, double b, double rel, double floor);
 
