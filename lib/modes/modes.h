@@ -58,6 +58,10 @@ typedef struct molq_rovib_state {
  * receive the v = 0, J = 0 term. */
 void molq_rovib_ladder_minima(const molq_rovib_state *s, double lo[2]);
 
+/* Column l of a Dunham matrix at v + 1/2 = vh (cm^-1): l = 0 gives G(v)
+ * with Te left out, l = 1 gives B_v. */
+double molq_dunham_column(const double (*y)[MOLQ_DUNHAM_L], int l, double vh);
+
 /* Does the ground state (st[0]) have two nuclear-spin modifications
  * (both parity weights > 0 and different, as for H2 or 14N2)?  Otherwise
  * (heteronuclear, or I = 0 like 16O2) there are no spin isomers. */

@@ -87,17 +87,20 @@ static double term(const molq_rovib_state *s, double vh, double x)
     return e;
 }
 
-/* Column l of the Dunham expansion at v + 1/2 = vh: l = 0 gives G(v),
- * l = 1 gives B_v. */
-static double column(const molq_rovib_state *s, int l, double vh)
+double molq_dunham_column(const double (*y)[MOLQ_DUNHAM_L], int l, double vh)
 {
     double e = 0.0, vk = 1.0;
     int k;
     for (k = 0; k < MOLQ_DUNHAM_K; k++) {
-        e += s->y[k][l] * vk;
+        e += y[k][l] * vk;
         vk *= vh;
     }
     return e;
+}
+
+static double column(const molq_rovib_state *s, int l, double vh)
+{
+    return molq_dunham_column(s->y, l, vh);
 }
 
 /* Term value of a 2Pi level at x = (J + 1/2)^2 - 1 on the branch of sign

@@ -10,18 +10,6 @@ static char *dup_or_empty(const char *s)
     return molq_strdup(s != NULL ? s : "");
 }
 
-/* Column l of a state's Dunham expansion at v + 1/2 = vh (cm^-1):
- * l = 0 gives G(v), l = 1 gives B_v. */
-static double dunham_column(const molq_spec_state *st, int l, double vh)
-{
-    double e = 0.0, vk = 1.0;
-    int k;
-    for (k = 0; k < MOLQ_DUNHAM_K; k++) {
-        e += st->y[k][l] * vk;
-        vk *= vh;
-    }
-    return e;
-}
 
 /* RRHO inputs: explicit ones from the spec, or derived from the diatomic
  * states (B0 and G(1) - G(0) of the ground state; each state's v = 0 level
@@ -55,7 +43,7 @@ static void rrho_inputs_of(const molq_spec *spec, int levels,
     for (i = 0; i < spec->nrot; i++)
         r->rot[i] = spec->rot[i];
     if (derive_rot(spec)) {
-        r->rot[0] = dunham_column(&spec->states[0], 1, 0.5);
+        r->rot[0] = molq_dunham_column(spec->states[0].y, 1, 0.5);
         r->nrot = 1;
     }
     r->nvib = 0;
@@ -83,7 +71,7 @@ static void fill_rrho_arrays(const molq_spec *spec, int levels, double *vt,
         }
     } else if (derive_vib(spec)) {
         vt[0] = MOLQ_C2_CM_K *
-                (dunham_column(x, 0, 1.5) - dunham_column(x, 0, 0.5));
+                (molq_dunham_column(x->y, 0, 1.5) - molq_dunham_column(x->y, 0, 0.5));
         vg[0] = 1.0;
     }
     if (spec->nel > 0) {
