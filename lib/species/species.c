@@ -70,8 +70,8 @@ static void fill_rrho_arrays(const molq_spec *spec, int levels, double *vt,
             vg[k++] = (double)spec->vib_deg[i];
         }
     } else if (derive_vib(spec)) {
-        vt[0] = MOLQ_C2_CM_K *
-                (molq_dunham_column(x->y, 0, 1.5) - molq_dunham_column(x->y, 0, 0.5));
+        vt[0] = MOLQ_C2_CM_K * (molq_dunham_column(x->y, 0, 1.5) -
+                                molq_dunham_column(x->y, 0, 0.5));
         vg[0] = 1.0;
     }
     if (spec->nel > 0) {
