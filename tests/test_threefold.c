@@ -28,10 +28,7 @@
 
 static double rot_prop(const molq_species *sp, double T, molq_property p)
 {
-    double v;
-    ck_assert_int_eq(molq_eval_mode(sp, tu_mode_index(sp, MOLQ_MODE_ROTATION), T, 1e5, p, &v),
-                     MOLQ_OK);
-    return v;
+    return tu_eval_kind(sp, MOLQ_MODE_ROTATION, T, p);
 }
 
 /* Invented test molecules. */

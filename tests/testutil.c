@@ -90,6 +90,16 @@ size_t tu_mode_index(const molq_species *sp, molq_mode_kind kind)
     return 0;
 }
 
+double tu_eval_kind(const molq_species *sp, molq_mode_kind kind, double T,
+                    molq_property prop)
+{
+    double v;
+    ck_assert_int_eq(
+        molq_eval_mode(sp, tu_mode_index(sp, kind), T, 1e5, prop, &v),
+        MOLQ_OK);
+    return v;
+}
+
 int tu_close(double a, double b, double rel, double floor)
 {
     double scale = fmax(fmax(fabs(a), fabs(b)), floor);

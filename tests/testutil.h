@@ -38,6 +38,10 @@ const molq_species *tu_from_json(const char *json, molq_db **db);
 /* Index of the species' first mode of this kind (fails the test if none). */
 size_t tu_mode_index(const molq_species *sp, molq_mode_kind kind);
 
+/* Property of that mode at T and 1e5 Pa (fails the test on an error). */
+double tu_eval_kind(const molq_species *sp, molq_mode_kind kind, double T,
+                    molq_property prop);
+
 /* |a - b| <= tol * max(|a|, |b|, floor) */
 int tu_close(double a, double b, double rel, double floor);
 
