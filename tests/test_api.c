@@ -124,6 +124,10 @@ START_TEST(batch_and_per_mass)
     ck_assert_int_eq(molq_eval_per_mass(sp, 500, 1e5, MOLQ_CP, &v), MOLQ_OK);
     ck_assert_close(v, tu_eval(sp, 500, 1e5, MOLQ_CP) / 18.0153e-3, 1e-15, 0);
     ck_assert_int_eq(molq_eval_per_mass(sp, 500, 1e5, MOLQ_LNQ, &v), MOLQ_OK);
+    /* regression: a NULL out-pointer is MOLQ_EARG, as for molq_eval (it was
+     * written through and crashed) */
+    ck_assert_int_eq(molq_eval_per_mass(sp, 500, 1e5, MOLQ_CP, NULL),
+                     MOLQ_EARG);
     ck_assert_double_eq(v, tu_eval(sp, 500, 1e5, MOLQ_LNQ));
     {
         molq_property props[3] = {MOLQ_S, MOLQ_CP, MOLQ_G};

@@ -587,7 +587,8 @@ MOLQ_API molq_status molq_eval_batch(const molq_species *species,
 /* As molq_eval, per unit mass: extensive properties (cp, cv, h, u, s, g, a,
  * h_minus_h298, gef, h_minus_h0 and the derivatives) divided by the molar
  * mass, giving J/(kg K), J/kg, J/(kg K^2); MOLQ_LNQ and MOLQ_DGRT_DT are
- * returned unchanged.  Added in 0.1.0. */
+ * returned unchanged.  @return as molq_eval (MOLQ_EARG for a NULL out).
+ * Added in 0.1.0. */
 MOLQ_API molq_status molq_eval_per_mass(const molq_species *species,
                                         double T, double p,
                                         molq_property prop, double *out);
