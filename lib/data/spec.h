@@ -92,9 +92,13 @@ struct molq_spec_s {
  * out has room for s->nstates entries. */
 void molq_spec_rovib_states(const molq_spec *s, molq_rovib_state *out);
 
-/* The anharmonic-vibration input of a spec with vibterms (validated
- * indices), leaving out vibrations replaced by torsions. */
-void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out);
+/* The anharmonic-vibration input of a spec with vibterms, leaving out
+ * vibrations replaced by torsions.  MOLQ_ELIMIT when more than
+ * MOLQ_MAX_ANHARM_MODES vibrations are kept or more than
+ * MOLQ_MAX_ANHARM_MODES + MOLQ_MAX_TORSIONS are given (the sizes of its
+ * tables), MOLQ_EVALUE on a mode index that is not a vibration; validation
+ * refuses both first with a message. */
+molq_status molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out);
 
 /* Is vibration i replaced by a torsion? */
 int molq_spec_replaced(const molq_spec *s, size_t i);

@@ -190,7 +190,11 @@ static molq_status validate_anharmonic(const molq_spec *s, char *err,
                  "per rotational constant (got %zu)", nm, field, s->nrot,
                  t->n);
     }
-    molq_spec_anharm_input(s, &in);
+    if (molq_spec_anharm_input(s, &in) != MOLQ_OK)
+        FAIL(MOLQ_ELIMIT, "species '%s': field 'anharmonicity': at most %d "
+             "vibrations in the anharmonic model and %d more replaced by "
+             "torsions (got %zu)", nm, MOLQ_MAX_ANHARM_MODES,
+             MOLQ_MAX_TORSIONS, s->nvib);
     for (i = 0; i < in.n; i++)
         if (!(in.w[i] > 0.0))
             FAIL(MOLQ_EVALUE, "species '%s': field 'anharmonicity': the "
