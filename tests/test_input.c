@@ -93,6 +93,77 @@ START_TEST(too_many_anharmonic_modes)
 }
 END_TEST
 
+/* ------------------------------------------------------------------------ */
+/* Molar mass units.                                                        */
+/* ------------------------------------------------------------------------ */
+
+static molq_status argon(int grams, double mass, molq_species **out,
+                         char *err, size_t errlen)
+{
+    molq_spec *s;
+    molq_status st;
+    ck_assert_int_eq(molq_spec_new("Ar", &s), MOLQ_OK);
+    if (grams)
+        ck_assert_int_eq(molq_spec_set_molar_mass_g_per_mol(s, mass), MOLQ_OK);
+    else
+        ck_assert_int_eq(molq_spec_set_molar_mass(s, mass), MOLQ_OK);
+    st = molq_species_create(s, out, err, errlen);
+    molq_spec_free(s);
+    return st;
+}
+
+/* Argon, S(298.15 K, 1 bar) = 154.845 J/(mol K): NIST-JANAF Thermochemical
+ * Tables, 4th ed. (1998), Ar (ref) table (from memory; the extract in
+ * tests/data/janaf agrees).  Before the fix the kg/mol setter took 39.948
+ * without complaint and gave 241 J/(mol K). */
+START_TEST(molar_mass_units)
+{
+    molq_species *sp = (molq_species *)0x1;
+    char err[512];
+    ck_assert_int_eq(argon(0, 39.948, &sp, err, sizeof err), MOLQ_EVALUE);
+    ck_assert_ptr_eq(sp, (molq_species *)0x1);
+    ck_assert_msg(strstr(err, "'molar_mass'") != NULL &&
+                      strstr(err, "kg/mol; did you mean g/mol? use "
+                                  "molq_spec_set_molar_mass_g_per_mol") != NULL,
+                  "%s", err);
+    ck_assert_int_eq(argon(1, 39.948, &sp, err, sizeof err), MOLQ_OK);
+    ck_assert_close(tu_eval(sp, 298.15, 1e5, MOLQ_S), 154.845, 2e-5, 0);
+    ck_assert_close(molq_species_molar_mass_g_per_mol(sp), 39.948, 1e-15, 0);
+    ck_assert_close(molq_species_molar_mass(sp), 0.039948, 1e-15, 0);
+    molq_species_free(sp);
+    ck_assert_int_eq(argon(0, 0.039948, &sp, err, sizeof err), MOLQ_OK);
+    ck_assert_close(tu_eval(sp, 298.15, 1e5, MOLQ_S), 154.845, 2e-5, 0);
+    molq_species_free(sp);
+    /* bounds: 1 kg/mol accepted, above refused; the electron's molar mass
+     * 5.48579909065e-7 kg/mol (CODATA 2018) accepted, below refused */
+    ck_assert_int_eq(argon(0, 1.0, &sp, err, sizeof err), MOLQ_OK);
+    molq_species_free(sp);
+    ck_assert_int_eq(argon(1, 1000.5, &sp, err, sizeof err), MOLQ_EVALUE);
+    ck_assert_ptr_nonnull(strstr(err, "1000 g/mol"));
+    ck_assert_int_eq(argon(0, 5.48579909065e-7, &sp, err, sizeof err),
+                     MOLQ_OK);
+    molq_species_free(sp);
+    ck_assert_int_eq(argon(0, 5.4e-7, &sp, err, sizeof err), MOLQ_EVALUE);
+    ck_assert_ptr_nonnull(strstr(err, "electron"));
+    ck_assert_double_eq(molq_species_molar_mass_g_per_mol(NULL), 0.0);
+    ck_assert_int_eq(molq_spec_set_molar_mass_g_per_mol(NULL, 1.0), MOLQ_EARG);
+}
+END_TEST
+
+/* A species file gives g/mol: 1500 g/mol is refused in that unit. */
+START_TEST(molar_mass_file_bound)
+{
+    static const char *js = "{\"species\": [{\"name\": \"X\", "
+                            "\"molar_mass\": 1500, \"structure\": \"atom\"}]}";
+    molq_db *db = NULL;
+    char err[512];
+    ck_assert_int_eq(molq_db_read_string(js, strlen(js), &db, err, sizeof err),
+                     MOLQ_EVALUE);
+    ck_assert_msg(strstr(err, "'molar_mass'") && strstr(err, "1000 g/mol") &&
+                      !strstr(err, "molq_spec_set"), "%s", err);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("input");
@@ -101,6 +172,8 @@ int main(void)
     tcase_add_loop_test(tc, many_modes_with_torsions, 0,
                         sizeof shapes / sizeof shapes[0]);
     tcase_add_test(tc, too_many_anharmonic_modes);
+    tcase_add_test(tc, molar_mass_units);
+    tcase_add_test(tc, molar_mass_file_bound);
     suite_add_tcase(s, tc);
     return tu_run(s);
 }

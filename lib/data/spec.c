@@ -226,6 +226,17 @@ molq_status molq_spec_set_molar_mass(molq_spec *s, double kg_per_mol)
         return MOLQ_EARG;
     s->molar_mass = kg_per_mol;
     s->has_molar_mass = 1;
+    s->mass_in_g = 0;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_molar_mass_g_per_mol(molq_spec *s, double g_per_mol)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->molar_mass = g_per_mol * 1e-3;
+    s->has_molar_mass = 1;
+    s->mass_in_g = 1;
     return MOLQ_OK;
 }
 

@@ -20,6 +20,15 @@
 #define MOLQ_MAX_TORSIONS 8
 #define MOLQ_MAX_TORSION_TERMS 8
 
+/* Bounds of the integer fields (documented in the README and molq.h,
+ * refused with MOLQ_EVALUE naming the field). */
+#define MOLQ_MAX_SYMMETRY_NUMBER 100000 /* rotational and internal */
+#define MOLQ_MAX_DEGENERACY 1000000     /* vibrations, levels, states */
+#define MOLQ_MAX_TORSION_N 12           /* V_n(1 - cos n phi) */
+/* Molar mass: from the electron's (MOLQ_M_E_MOLAR) to 1 kg/mol. */
+#define MOLQ_MAX_MOLAR_MASS 1.0 /* kg/mol */
+
+
 /* One electronic state of a diatomic with its own term values. */
 typedef struct molq_spec_state {
     double te;  /* term energy of the potential minimum, cm^-1 */
@@ -56,6 +65,7 @@ struct molq_spec_s {
     char *source;  /* NULL when not given */
     double molar_mass; /* kg/mol */
     int has_molar_mass;
+    int mass_in_g; /* set through the g/mol setter (messages use that unit) */
     int structure; /* molq_structure, stored as int to validate */
     int sigma;
     double rot[3];
