@@ -69,8 +69,9 @@ static int model_valid(const model *m)
 {
     static const size_t need_rot[3] = {0, 1, 3};
     size_t i;
+    /* molq.h: from the electron's molar mass to 1 kg/mol */
     if (!m->name_len_ok || !m->has_mass || !isfinite(m->mass) ||
-        !(m->mass > 0.0))
+        !(m->mass >= 5.48579909065e-7) || !(m->mass <= 1.0))
         return 0;
     if (m->structure < 0 || m->structure > 2)
         return 0;

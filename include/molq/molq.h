@@ -273,10 +273,24 @@ MOLQ_API molq_status molq_spec_set_formula(molq_spec *spec,
  * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM.  Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_source(molq_spec *spec, const char *source);
 
-/* Set the molar mass in kg/mol (e.g. 0.0280134 for N2).
+/* Set the molar mass in KILOGRAMS per mole (kg/mol, e.g. 0.0280134 for
+ * N2) -- NOT g/mol, the unit of species files and of the Python binding;
+ * for g/mol use molq_spec_set_molar_mass_g_per_mol.  molq_species_create
+ * accepts masses from the electron's (5.48579909065e-7 kg/mol, CODATA
+ * 2018) to 1 kg/mol (no ideal-gas molecule is heavier) and refuses others
+ * with MOLQ_EVALUE naming 'molar_mass' (above 1 kg/mol the message asks
+ * whether g/mol was meant).  The value is copied.  Not thread-safe for
+ * concurrent modification of the same spec.
  * @return MOLQ_OK or MOLQ_EARG (spec NULL).  Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_molar_mass(molq_spec *spec,
                                               double kg_per_mol);
+
+/* As molq_spec_set_molar_mass, in grams per mole (g/mol, the unit of the
+ * trade and of species files: 28.0134 for N2); accepted from the
+ * electron's 5.48579909065e-4 g/mol to 1000 g/mol.
+ * @return MOLQ_OK or MOLQ_EARG (spec NULL).  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_molar_mass_g_per_mol(molq_spec *spec,
+                                                        double g_per_mol);
 
 /* Set the structure.  @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_structure(molq_spec *spec,
@@ -516,6 +530,10 @@ MOLQ_API const char *molq_species_source(const molq_species *species);
 
 /* @return the molar mass in kg/mol, or 0 if species is NULL.  Added 0.1.0. */
 MOLQ_API double molq_species_molar_mass(const molq_species *species);
+
+/* @return the molar mass in g/mol, or 0 if species is NULL.  Thread-safe.
+ *         Added in 0.1.0. */
+MOLQ_API double molq_species_molar_mass_g_per_mol(const molq_species *species);
 
 /* @return 1 if the species carries a standard enthalpy of formation, 0 if
  *         not (h is then the sensible enthalpy, see molq_property) or if

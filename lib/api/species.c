@@ -73,6 +73,11 @@ double molq_species_molar_mass(const molq_species *sp)
     return sp ? sp->molar_mass : 0.0;
 }
 
+double molq_species_molar_mass_g_per_mol(const molq_species *sp)
+{
+    return sp ? sp->molar_mass * 1e3 : 0.0;
+}
+
 int molq_species_has_formation_enthalpy(const molq_species *sp)
 {
     return sp ? sp->has_formation_enthalpy : 0;

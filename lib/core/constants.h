@@ -10,6 +10,8 @@
 #define MOLQ_N_AVOGADRO 6.02214076e23     /* 1/mol, exact */
 #define MOLQ_C_LIGHT 299792458.0          /* m/s, exact */
 #define MOLQ_M_U 1.66053906660e-27        /* kg, CODATA 2018 */
+#define MOLQ_M_E_MOLAR 5.48579909065e-7   /* electron molar mass, kg/mol,
+                                             CODATA 2018 */
 
 /* Molar gas constant R = N_A k, J/(mol K) (exact by the definitions). */
 #define MOLQ_R (MOLQ_N_AVOGADRO * MOLQ_K_BOLTZMANN)

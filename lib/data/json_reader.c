@@ -133,7 +133,7 @@ static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
     if ((v = json_object_get(e, "molar_mass")) != NULL) {
         if ((st = molq_json_number(c, v, "molar_mass", &x)) != MOLQ_OK)
             return st;
-        molq_spec_set_molar_mass(s, x * 1e-3); /* g/mol in the file */
+        molq_spec_set_molar_mass_g_per_mol(s, x); /* g/mol in the file */
     }
     v = json_object_get(e, "structure");
     if (v == NULL)

@@ -226,6 +226,17 @@ molq_status molq_spec_set_molar_mass(molq_spec *s, double kg_per_mol)
         return MOLQ_EARG;
     s->molar_mass = kg_per_mol;
     s->has_molar_mass = 1;
+    s->mass_in_g = 0;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_set_molar_mass_g_per_mol(molq_spec *s, double g_per_mol)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->molar_mass = g_per_mol * 1e-3;
+    s->has_molar_mass = 1;
+    s->mass_in_g = 1;
     return MOLQ_OK;
 }
 
@@ -410,25 +421,35 @@ int molq_spec_replaced(const molq_spec *s, size_t i)
     return 0;
 }
 
-void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out)
+molq_status molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out)
 {
-    size_t map[MOLQ_MAX_ANHARM_MODES + 1], i, j, k, n = 0;
+    /* one entry per vibration: at most MOLQ_MAX_ANHARM_MODES kept ones and
+     * one replaced by each torsion */
+    size_t map[MOLQ_MAX_ANHARM_MODES + MOLQ_MAX_TORSIONS], i, j, k, n = 0;
     int have_w[MOLQ_MAX_ANHARM_MODES] = {0};
     memset(out, 0, sizeof *out);
-    for (i = 0; i < s->nvib && n < MOLQ_MAX_ANHARM_MODES; i++) {
+    if (s->nvib > sizeof map / sizeof map[0])
+        return MOLQ_ELIMIT;
+    for (i = 0; i < s->nvib; i++) {
         map[i] = molq_spec_replaced(s, i) ? (size_t)-1 : n;
-        if (map[i] != (size_t)-1) {
-            out->d[n] = s->vib_deg[i];
-            out->w[n] = s->vib_wn[i]; /* fundamental until replaced */
-            n++;
-        }
+        if (map[i] == (size_t)-1)
+            continue;
+        if (n >= MOLQ_MAX_ANHARM_MODES)
+            return MOLQ_ELIMIT;
+        out->d[n] = s->vib_deg[i];
+        out->w[n] = s->vib_wn[i]; /* fundamental until replaced */
+        n++;
     }
     out->n = n;
     out->nrot = 0;
     out->d0 = s->d0;
     for (k = 0; k < s->nvterms; k++) {
         const molq_spec_vibterm *t = &s->vterms[k];
-        size_t a = map[t->i], b = map[t->j];
+        size_t a, b;
+        if (t->i >= s->nvib || t->j >= s->nvib)
+            return MOLQ_EVALUE; /* validation names the field */
+        a = map[t->i];
+        b = map[t->j];
         if (a == (size_t)-1 || b == (size_t)-1)
             continue;
         switch (t->kind) {
@@ -465,6 +486,7 @@ void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out)
             shift += out->g[i];
         out->w[i] -= shift;
     }
+    return MOLQ_OK;
 }
 
 molq_status molq_spec_set_top_weights(molq_spec *s, double ee, double eo,

@@ -20,6 +20,15 @@
 #define MOLQ_MAX_TORSIONS 8
 #define MOLQ_MAX_TORSION_TERMS 8
 
+/* Bounds of the integer fields (documented in the README and molq.h,
+ * refused with MOLQ_EVALUE naming the field). */
+#define MOLQ_MAX_SYMMETRY_NUMBER 100000 /* rotational and internal */
+#define MOLQ_MAX_DEGENERACY 1000000     /* vibrations, levels, states */
+#define MOLQ_MAX_TORSION_N 12           /* V_n(1 - cos n phi) */
+/* Molar mass: from the electron's (MOLQ_M_E_MOLAR) to 1 kg/mol. */
+#define MOLQ_MAX_MOLAR_MASS 1.0 /* kg/mol */
+
+
 /* One electronic state of a diatomic with its own term values. */
 typedef struct molq_spec_state {
     double te;  /* term energy of the potential minimum, cm^-1 */
@@ -56,6 +65,7 @@ struct molq_spec_s {
     char *source;  /* NULL when not given */
     double molar_mass; /* kg/mol */
     int has_molar_mass;
+    int mass_in_g; /* set through the g/mol setter (messages use that unit) */
     int structure; /* molq_structure, stored as int to validate */
     int sigma;
     double rot[3];
@@ -92,9 +102,13 @@ struct molq_spec_s {
  * out has room for s->nstates entries. */
 void molq_spec_rovib_states(const molq_spec *s, molq_rovib_state *out);
 
-/* The anharmonic-vibration input of a spec with vibterms (validated
- * indices), leaving out vibrations replaced by torsions. */
-void molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out);
+/* The anharmonic-vibration input of a spec with vibterms, leaving out
+ * vibrations replaced by torsions.  MOLQ_ELIMIT when more than
+ * MOLQ_MAX_ANHARM_MODES vibrations are kept or more than
+ * MOLQ_MAX_ANHARM_MODES + MOLQ_MAX_TORSIONS are given (the sizes of its
+ * tables), MOLQ_EVALUE on a mode index that is not a vibration; validation
+ * refuses both first with a message. */
+molq_status molq_spec_anharm_input(const molq_spec *s, molq_anharm_input *out);
 
 /* Is vibration i replaced by a torsion? */
 int molq_spec_replaced(const molq_spec *s, size_t i);

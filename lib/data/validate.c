@@ -5,6 +5,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "core/constants.h"
 #include "core/errbuf.h"
 #include "data/spec.h"
 
@@ -190,7 +191,11 @@ static molq_status validate_anharmonic(const molq_spec *s, char *err,
                  "per rotational constant (got %zu)", nm, field, s->nrot,
                  t->n);
     }
-    molq_spec_anharm_input(s, &in);
+    if (molq_spec_anharm_input(s, &in) != MOLQ_OK)
+        FAIL(MOLQ_ELIMIT, "species '%s': field 'anharmonicity': at most %d "
+             "vibrations in the anharmonic model and %d more replaced by "
+             "torsions (got %zu)", nm, MOLQ_MAX_ANHARM_MODES,
+             MOLQ_MAX_TORSIONS, s->nvib);
     for (i = 0; i < in.n; i++)
         if (!(in.w[i] > 0.0))
             FAIL(MOLQ_EVALUE, "species '%s': field 'anharmonicity': the "
@@ -274,9 +279,24 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
              "long (got %zu)", nm, MOLQ_MAX_NAME, len);
 
     if (s->has_molar_mass) {
+        const char *unit = s->mass_in_g ? "g/mol" : "kg/mol";
+        double given = s->mass_in_g ? s->molar_mass * 1e3 : s->molar_mass;
         if (!isfinite(s->molar_mass) || s->molar_mass <= 0.0)
             FAIL(MOLQ_EVALUE, "species '%s': field 'molar_mass': must be a "
-                 "finite number > 0 (got %g g/mol)", nm, s->molar_mass * 1e3);
+                 "finite number > 0 (got %g %s)", nm, given, unit);
+        if (s->molar_mass > MOLQ_MAX_MOLAR_MASS && !s->mass_in_g)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'molar_mass': %g is above "
+                 "1 kg/mol, heavier than any ideal-gas molecule: the unit is "
+                 "kg/mol; did you mean g/mol? use "
+                 "molq_spec_set_molar_mass_g_per_mol", nm, given);
+        if (s->molar_mass > MOLQ_MAX_MOLAR_MASS)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'molar_mass': must be at "
+                 "most 1000 g/mol (1 kg/mol; no ideal-gas molecule is that "
+                 "heavy; got %g g/mol)", nm, given);
+        if (s->molar_mass < MOLQ_M_E_MOLAR)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'molar_mass': must be at "
+                 "least the electron's, 5.48579909065e-7 kg/mol (got %g %s)",
+                 nm, given, unit);
         *molar_mass = s->molar_mass;
     } else if (s->formula != NULL) {
         char sub[200];

@@ -151,7 +151,11 @@ static molq_status build_rrho(molq_species *sp, const molq_spec *spec,
     }
     if (levels && spec->nvterms > 0) {
         molq_anharm_input in;
-        molq_spec_anharm_input(spec, &in);
+        if (molq_spec_anharm_input(spec, &in) != MOLQ_OK) {
+            molq_errf(err, errlen, "species '%s': field 'anharmonicity': "
+                      "too many vibrations", spec->name);
+            return MOLQ_ELIMIT; /* refused by validation first */
+        }
         if (molq_mode_anharmonic_init(&sp->modes[sp->nmodes], &in) != 0)
             return MOLQ_ENOMEM;
         sp->nmodes++;
