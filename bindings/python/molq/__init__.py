@@ -102,6 +102,7 @@ from ._core import (  # noqa: F401  (re-exported API)
     STATUS_NAMES,
     MolqError,
     Database,
+    UnknownSpeciesError,
     Species,
     model_names,
     property_names,
@@ -119,6 +120,7 @@ __version__ = "0.1.0"
 
 __all__ = [
     "P_STANDARD", "T_REF", "STATUS_NAMES", "MolqError", "Database",
+    "UnknownSpeciesError",
     "Species", "model_names", "property_names", "property_unit", "status_string",
     "version", "library_path",
     "EARG", "ENOMEM", "EIO", "ESYNTAX", "EKEY", "ETYPE", "EVALUE",
