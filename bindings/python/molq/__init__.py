@@ -21,7 +21,9 @@ Main objects
 ``molq.Species.from_constants(name, structure=..., molar_mass=..., ...)``
     a species from your own constants (rigid rotor / harmonic, or a
     diatomic's electronic states for the level sum: ``diatomic_states=``,
-    ``dissociation_energy=``, ``model=``).
+    ``dissociation_energy=``, ``model=``; polyatomic level inputs:
+    ``anharmonicity=``, ``torsions=``, ``rotational_weights=``,
+    ``rotational_spin=``).
 ``sp.model``, ``sp.with_model("rrho")``, ``molq.model_names()``
     the model a species uses ("rrho": rigid rotor, harmonic vibrations,
     electronic level list; "levels": explicit level sums, for the bound
@@ -33,8 +35,18 @@ Main objects
 ``sp.eval(prop, T, p)`` and the shortcuts ``sp.cp``, ``cv``, ``h``, ``u``,
 ``s``, ``g``, ``a``, ``lnq``, ``gef``, ``h_minus_h298``, ``h_minus_h0``,
 ``dcp_dT``; ``sp.eval_per_mass``, ``sp.eval_many``, ``sp.modes(T, p)``.
-    T may be a number (float back), a sequence (list back) or a numpy
-    array (array back).
+    T and p may each be a number (float back), a sequence (list back) or
+    a numpy array (array back); a number goes with every element of the
+    other, two sequences pair up, numpy arrays broadcast.
+``Species.from_dict(entry)``
+    a species from one species-file entry (a dict with the file's keys).
+Copying and pickling
+    ``copy.deepcopy`` returns the (immutable) object itself; ``pickle``
+    stores a species' description and rebuilds it, so species can be sent
+    to multiprocessing pools.
+``molq.UnknownSpeciesError``
+    the KeyError of ``db[name]`` for an unknown name, suggesting near names
+    (``"no species 'n2' ...; did you mean 'N2'?"``).
 ``molq.MolqError``
     raised for errors the library reports (``.status``, ``.status_name``,
     ``.message``); unknown property names raise ValueError.
@@ -102,6 +114,7 @@ from ._core import (  # noqa: F401  (re-exported API)
     STATUS_NAMES,
     MolqError,
     Database,
+    UnknownSpeciesError,
     Species,
     model_names,
     property_names,
@@ -119,6 +132,7 @@ __version__ = "0.1.0"
 
 __all__ = [
     "P_STANDARD", "T_REF", "STATUS_NAMES", "MolqError", "Database",
+    "UnknownSpeciesError",
     "Species", "model_names", "property_names", "property_unit", "status_string",
     "version", "library_path",
     "EARG", "ENOMEM", "EIO", "ESYNTAX", "EKEY", "ETYPE", "EVALUE",

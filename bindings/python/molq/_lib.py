@@ -157,6 +157,21 @@ for _name, _res, _args in _PROTOTYPES:
     _fn.restype = _res
     _fn.argtypes = _args
 
+# Functions of newer libraries, declared only when present (the binding
+# works without them): the warning lists of species and databases.
+_OPTIONAL_PROTOTYPES = [
+    ("molq_species_warning_count", _size, [_ptr]),
+    ("molq_species_warning", _str, [_ptr, _size]),
+    ("molq_db_warning_count", _size, [_ptr]),
+    ("molq_db_warning", _str, [_ptr, _size]),
+]
+
+for _name, _res, _args in _OPTIONAL_PROTOTYPES:
+    _fn = getattr(lib, _name, None)
+    if _fn is not None:
+        _fn.restype = _res
+        _fn.argtypes = _args
+
 LIBRARY_PATH = lib._name
 VERSION_NUMBER = lib.molq_version_number()
 VERSION_STRING = lib.molq_version_string().decode("ascii", "replace")

@@ -187,7 +187,9 @@ class BadStates(unittest.TestCase):
         with self.assertRaises(TypeError):
             self.n2.cp("300")
         with self.assertRaises(TypeError):
-            self.n2.cp(300.0, [1e5, 2e5])
+            self.n2.cp(300.0, "1e5")
+        with self.assertRaises(TypeError):
+            self.n2.cp(300.0, None)
 
 
 class Lifetimes(unittest.TestCase):
