@@ -469,7 +469,25 @@ def _rebuild_database(text):
 # Species
 # ---------------------------------------------------------------------------
 
-class Species:
+class _Immutable:
+    """Shared by Species and Database: a context manager that closes the
+    handle, and copies that are the object itself (the C handle is
+    immutable, so sharing it is safe and no pointer is ever duplicated)."""
+
+    def __enter__(self):
+        return self
+
+    def __exit__(self, *exc):
+        self.close()
+
+    def __copy__(self):
+        return self
+
+    def __deepcopy__(self, memo):
+        return self
+
+
+class Species(_Immutable):
     """One ideal-gas species (immutable).
 
     Obtain one from a :class:`Database` (``db["N2"]``; the species keeps its
@@ -663,18 +681,6 @@ class Species:
         if self._private and self._db is not None:
             self._db.close()
         self._db = None
-
-    def __enter__(self):
-        return self
-
-    def __exit__(self, *exc):
-        self.close()
-
-    def __copy__(self):
-        return self     # immutable: a copy is the same species
-
-    def __deepcopy__(self, memo):
-        return self
 
     def __reduce__(self):
         self._ptr       # ValueError after close()
@@ -1473,7 +1479,7 @@ def _no_species(name, names):
     return UnknownSpeciesError(msg, text, hints)
 
 
-class Database:
+class Database(_Immutable):
     """An immutable set of species read from JSON (or the built-in starter
     set).  ``len(db)``, ``db.names()``, ``db["N2"]``, ``"N2" in db`` and
     iteration (species in file order) work as for a mapping; an unknown
@@ -1551,18 +1557,6 @@ class Database:
         """Free the database now.  Species taken from it become unusable
         (ValueError); without close() it lives as long as any of them."""
         self._h.close()
-
-    def __enter__(self):
-        return self
-
-    def __exit__(self, *exc):
-        self.close()
-
-    def __copy__(self):
-        return self     # immutable: a copy is the same database
-
-    def __deepcopy__(self, memo):
-        return self
 
     def __reduce__(self):
         self._ptr       # ValueError after close()
