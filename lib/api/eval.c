@@ -83,8 +83,10 @@ molq_status molq_eval_per_mass(const molq_species *sp, double T, double p,
                                molq_property prop, double *out)
 {
     double v;
-    molq_status st = molq_eval(sp, T, p, prop, &v);
-    if (st != MOLQ_OK)
+    molq_status st;
+    if (out == NULL)
+        return MOLQ_EARG;
+    if ((st = molq_eval(sp, T, p, prop, &v)) != MOLQ_OK)
         return st;
     if (prop != MOLQ_LNQ && prop != MOLQ_DGRT_DT) {
         v /= sp->molar_mass;
