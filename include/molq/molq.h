@@ -101,11 +101,12 @@ typedef enum molq_status {
     MOLQ_EDUPLICATE = 8, /* two species share a name */
     MOLQ_ENOTFOUND = 9,  /* no species of that name */
     MOLQ_EDOMAIN = 10,   /* T or p is not finite and positive */
-    MOLQ_ERANGE = 11,    /* T is outside the validity range of a model the
-                            species uses (see molq_species_t_min), or so
-                            extreme (say 1e-300 K) that a result would
-                            overflow a double.  MOLQ_OK always comes with
-                            finite numbers. */
+    MOLQ_ERANGE = 11,    /* T is below the lowest temperature at which the
+                            species' results mean something (a model's
+                            limit or the Boltzmann-gas limit, see
+                            molq_species_t_min), or so extreme that a
+                            result would overflow a double.  MOLQ_OK always
+                            comes with finite numbers. */
     MOLQ_ELIMIT = 12     /* input exceeds a documented size limit */
 } molq_status;
 
@@ -565,9 +566,30 @@ MOLQ_API molq_status molq_species_with_model(const molq_species *species,
                                              molq_species **out, char *err,
                                              size_t errlen);
 
-/* @return the lowest temperature in K at which every model of the species
- *         is valid (0 when no model has a lower limit).  Evaluations below
- *         it return MOLQ_ERANGE.  Added in 0.1.0. */
+/* @return the lowest temperature in K at which the species' results mean
+ *         something; every evaluation below it returns MOLQ_ERANGE.  It is
+ *         the larger of two limits:
+ *         - the lower limit of a model the species uses (the corrected
+ *           nonlinear rotor needs T >= theta_A, see molq_rotor), and
+ *         - the Boltzmann-gas limit at the standard pressure 1e5 Pa: the
+ *           temperature at which the mean occupation of the molecule's
+ *           lowest quantum states, N/(g0 q_tr) = n lambda^3 / g0 (lambda the
+ *           thermal de Broglie wavelength, g0 the degeneracy of the lowest
+ *           electronic level), reaches 1.  Below it the gas is quantum
+ *           degenerate: Bose or Fermi statistics, not the Boltzmann
+ *           statistics molq uses, decide its properties, and the
+ *           Sackur-Tetrode entropy heads for negative values.  At 1e5 Pa
+ *           this is 1.9 K for He, 1.2 K for N2, 295 K for the electron gas
+ *           (the published tables start the electron at 298.15 K).
+ *         The limit scales as (p/1e5 Pa)^(2/5) with pressure; molq applies
+ *         the standard-pressure value at every pressure, so at pressures
+ *         far above 1e5 Pa results just above t_min can belong to a
+ *         degenerate gas without a warning (in practice every real gas has
+ *         condensed long before).  Molecular data are validated against
+ *         published tables from about 100 K or 298.15 K upward; between
+ *         t_min and there the results are the model's, without a
+ *         published check.  0 only for a NULL species.  Thread-safe.
+ *         Added in 0.1.0. */
 MOLQ_API double molq_species_t_min(const molq_species *species);
 
 /* ------------------------------------------------------------------------ */

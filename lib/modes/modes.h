@@ -137,6 +137,13 @@ struct molq_mode {
 /* Translation of a particle of molar mass M (kg/mol), Sackur-Tetrode. */
 void molq_mode_translation_init(molq_mode *m, double molar_mass);
 
+/* Lowest temperature (K) at which a gas of molar mass M (kg/mol) whose
+ * lowest level has degeneracy g0 is a Boltzmann gas at pressure p (Pa):
+ * where the mean occupation of its lowest states, N/(g0 q_tr), reaches 1
+ * (n lambda^3 = g0).  Below it Fermi or Bose statistics matter and the
+ * Sackur-Tetrode entropy falls towards and below zero. */
+double molq_translation_boltzmann_t(double molar_mass, double g0, double p);
+
 /* Rigid rotation.  `linear` selects the rotor; B holds 1 (linear) or 3
  * (A >= B >= C, nonlinear) rotational constants in cm^-1.  *t_min receives
  * the lowest T at which the model is valid (0 if none). */

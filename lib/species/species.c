@@ -1,5 +1,6 @@
 #include "species/species.h"
 
+#include <math.h>
 #include <stdlib.h>
 
 #include "core/constants.h"
@@ -195,6 +196,29 @@ static molq_status build_levels(molq_species *sp, const molq_spec *spec,
     return MOLQ_OK;
 }
 
+/* Degeneracy of the lowest electronic level (for the Boltzmann-gas limit):
+ * the levels at the lowest energy of a level list, the ground diatomic
+ * state (half of it for a 2Pi state, whose two Omega ladders split), or 1. */
+static double ground_degeneracy(const molq_spec *spec)
+{
+    size_t i;
+    double lo, g = 0.0;
+    if (spec->nel > 0) {
+        lo = spec->el_e[0];
+        for (i = 1; i < spec->nel; i++)
+            if (spec->el_e[i] < lo)
+                lo = spec->el_e[i];
+        for (i = 0; i < spec->nel; i++)
+            if (spec->el_e[i] == lo)
+                g += spec->el_g[i];
+        return g;
+    }
+    if (spec->nstates > 0)
+        return spec->states[0].has_spin_orbit ? 0.5 * spec->states[0].g
+                                              : spec->states[0].g;
+    return 1.0;
+}
+
 molq_status molq_species_build(const molq_spec *spec, double molar_mass,
                                molq_model model, molq_species **out,
                                char *err, size_t errlen)
@@ -223,6 +247,11 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
     molq_mode_translation_init(&sp->modes[sp->nmodes++], molar_mass);
     st = model == MOLQ_MODEL_LEVELS ? build_levels(sp, spec, err, errlen)
                                     : build_rrho(sp, spec, 0, err, errlen);
+    /* below the Boltzmann limit at the standard pressure the results
+     * would be those of no real gas (see molq_species_t_min) */
+    sp->t_min = fmax(sp->t_min,
+                     molq_translation_boltzmann_t(
+                         molar_mass, ground_degeneracy(spec), MOLQ_P_STANDARD));
     if (st != MOLQ_OK) {
         if (st == MOLQ_ENOMEM)
             molq_errf(err, errlen, "species '%s': out of memory", spec->name);
