@@ -579,7 +579,7 @@ MOLQ_API molq_status molq_species_with_model(const molq_species *species,
  *           degenerate: Bose or Fermi statistics, not the Boltzmann
  *           statistics molq uses, decide its properties, and the
  *           Sackur-Tetrode entropy heads for negative values.  At 1e5 Pa
- *           this is 1.9 K for He, 1.2 K for N2, 295 K for the electron gas
+ *           this is 1.9 K for He, 0.58 K for N2, 295 K for the electron gas
  *           (the published tables start the electron at 298.15 K).
  *         The limit scales as (p/1e5 Pa)^(2/5) with pressure; molq applies
  *         the standard-pressure value at every pressure, so at pressures
@@ -591,6 +591,25 @@ MOLQ_API molq_status molq_species_with_model(const molq_species *species,
  *         published check.  0 only for a NULL species.  Thread-safe.
  *         Added in 0.1.0. */
 MOLQ_API double molq_species_t_min(const molq_species *species);
+
+/* Warnings: findings that do not stop a species from being built but that
+ * a user should see, such as a molar mass that differs by more than 1 %
+ * from the one its formula gives, or a mass lighter than any atom (a kg/mol
+ * value passed where g/mol is meant).  Each is one English line naming the
+ * species and the field, e.g. "species 'Ar': field 'molar_mass': ...".
+ * They are fixed when the species is made (molq_species_with_model keeps
+ * the original's) and never change afterwards.
+ * @return the number of warnings (0 for a NULL species).  Thread-safe.
+ * Added in 0.1.0. */
+MOLQ_API size_t molq_species_warning_count(const molq_species *species);
+
+/* @return warning `index` (0-based) as a NUL-terminated string borrowed
+ *         from the species (valid until it is freed), or NULL when index
+ *         is out of range or species is NULL.  At most 1000 are kept; the
+ *         last then says how many more there were.  Thread-safe.
+ *         Added in 0.1.0. */
+MOLQ_API const char *molq_species_warning(const molq_species *species,
+                                          size_t index);
 
 /* ------------------------------------------------------------------------ */
 /* Evaluation.  All evaluation calls are thread-safe on a shared species,   */
@@ -642,6 +661,8 @@ MOLQ_API molq_status molq_eval_per_mass(const molq_species *species,
  * w_odd/(w_even + w_odd) of the ground state).  Exactly 0 for a species
  * with a single modification (heteronuclear, nuclei of spin 0 such as 16O2,
  * or no diatomic level sum).
+ * A property of the molecules' internal states: evaluated down to the
+ * models' own limit, as an internal mode of molq_eval_mode.
  * @return MOLQ_OK, MOLQ_EARG (NULL, or a species not using
  * MOLQ_MODEL_LEVELS), MOLQ_EDOMAIN, MOLQ_ERANGE.  Added in 0.1.0. */
 MOLQ_API molq_status molq_eval_spin_conversion(const molq_species *species,
@@ -683,8 +704,13 @@ MOLQ_API const char *molq_mode_kind_name(molq_mode_kind kind);
  * (translation carries the +R of the ideal-gas entropy and the pressure),
  * MOLQ_DCV_DT.  The contributions add up to the species' value for lnq,
  * cv, s, dcv_dT and to h - h(0) - RT for u.
+ * An internal mode (rotation, vibration, electronic, ...) describes one
+ * molecule and is evaluated down to its model's own limit, which can lie
+ * below molq_species_t_min (that one includes the gas's Boltzmann limit);
+ * the translation mode keeps molq_species_t_min.
  * @return MOLQ_OK, MOLQ_EARG (bad index or unsupported property),
- *         MOLQ_EDOMAIN, MOLQ_ERANGE.  Added in 0.1.0. */
+ *         MOLQ_EDOMAIN, MOLQ_ERANGE (below the limit just described).
+ *         Added in 0.1.0. */
 MOLQ_API molq_status molq_eval_mode(const molq_species *species, size_t index,
                                     double T, double p, molq_property prop,
                                     double *out);
@@ -731,6 +757,19 @@ MOLQ_API const molq_species *molq_db_species(const molq_db *db, size_t index);
  * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
 MOLQ_API molq_status molq_db_find(const molq_db *db, const char *name,
                                   const molq_species **out);
+
+/* Warnings of a database: first those about the file itself (a missing
+ * schema_version), then every species' warnings in file order (the same
+ * text molq_species_warning gives).  A database that loaded with warnings
+ * is complete and usable; the warnings say what to check.
+ * @return the number of warnings (0 for a NULL db).  Thread-safe.
+ * Added in 0.1.0. */
+MOLQ_API size_t molq_db_warning_count(const molq_db *db);
+
+/* @return warning `index` (0-based), borrowed from the database (valid
+ *         until molq_db_free), or NULL when out of range or db is NULL.
+ *         Thread-safe.  Added in 0.1.0. */
+MOLQ_API const char *molq_db_warning(const molq_db *db, size_t index);
 
 #ifdef MOLQ_EXPERIMENTAL
 /* ------------------------------------------------------------------------ */

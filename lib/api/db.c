@@ -71,6 +71,7 @@ static molq_status find_duplicate(molq_spec *const *specs, size_t n,
 struct molq_db_s {
     size_t n;
     molq_species **sp;
+    molq_warnlist warnings; /* the file's, then each species' in order */
 };
 
 void molq_db_free(molq_db *db)
@@ -81,6 +82,7 @@ void molq_db_free(molq_db *db)
     for (i = 0; i < db->n; i++)
         molq_species_destroy(db->sp[i]);
     free(db->sp);
+    molq_warn_free(&db->warnings);
     free(db);
 }
 
@@ -91,14 +93,21 @@ molq_status molq_db_read_string(const char *json, size_t len, molq_db **out,
     size_t n = 0, i, j, levels = 0;
     molq_status st;
     molq_db *db;
+    molq_warnlist warn = {0};
     if (json == NULL || out == NULL) {
         molq_errf(err, errlen, "molq_db_read_string: NULL argument");
         return MOLQ_EARG;
     }
-    if ((st = molq_json_read_specs(json, len, &specs, &n, err, errlen)) !=
-        MOLQ_OK)
+    if ((st = molq_json_read_specs(json, len, &specs, &n, &warn, err,
+                                   errlen)) != MOLQ_OK) {
+        molq_warn_free(&warn);
         return st;
+    }
     db = calloc(1, sizeof *db);
+    if (db != NULL)
+        db->warnings = warn; /* owned by db (freed with it) from here */
+    else
+        molq_warn_free(&warn);
     if (db == NULL || (n > 0 && (db->sp = calloc(n, sizeof *db->sp)) == NULL)) {
         st = MOLQ_ENOMEM;
         molq_errf(err, errlen, "species file: out of memory");
@@ -115,6 +124,12 @@ molq_status molq_db_read_string(const char *json, size_t len, molq_db **out,
         if (st != MOLQ_OK)
             goto fail;
         db->n = i + 1;
+        if (molq_warn_append(&db->warnings, &db->sp[i]->warnings) !=
+            MOLQ_OK) {
+            st = MOLQ_ENOMEM;
+            molq_errf(err, errlen, "species file: out of memory");
+            goto fail;
+        }
         levels += molq_species_level_count(db->sp[i]);
         if (levels > MOLQ_MAX_FILE_LEVELS) {
             molq_errf(err, errlen, "species '%s': the file's level sums hold "
@@ -228,4 +243,14 @@ molq_status molq_db_find(const molq_db *db, const char *name,
             return MOLQ_OK;
         }
     return MOLQ_ENOTFOUND;
+}
+
+size_t molq_db_warning_count(const molq_db *db)
+{
+    return db ? db->warnings.n : 0;
+}
+
+const char *molq_db_warning(const molq_db *db, size_t index)
+{
+    return db ? molq_warn_get(&db->warnings, index) : NULL;
 }

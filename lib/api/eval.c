@@ -9,13 +9,20 @@ static int bad_prop(molq_property p)
     return (int)p < 0 || (size_t)p >= molq_property_count();
 }
 
-static molq_status check_state(const molq_species *sp, double T, double p)
+/* t_min: the gas's limit for whole-species results, the models' own
+ * (sp->t_min_internal) for one internal mode or the spin conversion. */
+static molq_status check_state_at(double t_min, double T, double p)
 {
     if (!isfinite(T) || T <= 0.0 || !isfinite(p) || p <= 0.0)
         return MOLQ_EDOMAIN;
-    if (T < sp->t_min)
+    if (T < t_min)
         return MOLQ_ERANGE;
     return MOLQ_OK;
+}
+
+static molq_status check_state(const molq_species *sp, double T, double p)
+{
+    return check_state_at(sp->t_min, T, p);
 }
 
 /* MOLQ_OK promises finite numbers: a result that overflows a double (only
@@ -104,7 +111,11 @@ molq_status molq_eval_mode(const molq_species *sp, size_t index, double T,
     double v;
     if (sp == NULL || out == NULL || index >= sp->nmodes || bad_prop(prop))
         return MOLQ_EARG;
-    if ((st = check_state(sp, T, p)) != MOLQ_OK)
+    st = check_state_at(sp->modes[index].kind == MOLQ_MODE_TRANSLATION
+                            ? sp->t_min
+                            : sp->t_min_internal,
+                        T, p);
+    if (st != MOLQ_OK)
         return st;
     if (molq_thermo_mode(sp, index, T, p, prop, &v) != 0)
         return MOLQ_EARG;
@@ -121,7 +132,8 @@ molq_status molq_eval_spin_conversion(const molq_species *sp, double T,
     size_t i;
     if (sp == NULL || out == NULL || sp->model != MOLQ_MODEL_LEVELS)
         return MOLQ_EARG;
-    if ((st = check_state(sp, T, MOLQ_P_STANDARD)) != MOLQ_OK)
+    if ((st = check_state_at(sp->t_min_internal, T, MOLQ_P_STANDARD)) !=
+        MOLQ_OK)
         return st;
     for (i = 0; i < sp->nmodes; i++)
         if (sp->modes[i].kind == MOLQ_MODE_ROVIBRONIC) {

@@ -9,15 +9,19 @@ molq_status molq_species_create(const molq_spec *spec, molq_species **out,
     double mass;
     molq_status st;
     molq_species *sp;
+    molq_warnlist warn = {0};
     if (spec == NULL || out == NULL) {
         molq_errf(err, errlen, "molq_species_create: NULL argument");
         return MOLQ_EARG;
     }
-    if ((st = molq_spec_validate(spec, &mass, err, errlen)) != MOLQ_OK)
+    if ((st = molq_spec_validate(spec, &mass, &warn, err, errlen)) !=
+            MOLQ_OK ||
+        (st = molq_species_build(spec, mass, molq_spec_default_model(spec),
+                                 &sp, err, errlen)) != MOLQ_OK) {
+        molq_warn_free(&warn);
         return st;
-    if ((st = molq_species_build(spec, mass, molq_spec_default_model(spec),
-                                 &sp, err, errlen)) != MOLQ_OK)
-        return st;
+    }
+    sp->warnings = warn; /* the species owns the list from here */
     molq_thermo_prepare(sp);
     *out = sp;
     return MOLQ_OK;
@@ -38,6 +42,12 @@ molq_status molq_species_with_model(const molq_species *species,
                             err, errlen);
     if (st != MOLQ_OK)
         return st;
+    if (molq_warn_append(&sp->warnings, &species->warnings) != MOLQ_OK) {
+        molq_species_destroy(sp);
+        molq_errf(err, errlen, "species '%s': out of memory",
+                  species->name);
+        return MOLQ_ENOMEM;
+    }
     molq_thermo_prepare(sp);
     *out = sp;
     return MOLQ_OK;
@@ -110,4 +120,14 @@ molq_status molq_species_mode_kind(const molq_species *sp, size_t index,
         return MOLQ_EARG;
     *out = sp->modes[index].kind;
     return MOLQ_OK;
+}
+
+size_t molq_species_warning_count(const molq_species *sp)
+{
+    return sp ? sp->warnings.n : 0;
+}
+
+const char *molq_species_warning(const molq_species *sp, size_t index)
+{
+    return sp ? molq_warn_get(&sp->warnings, index) : NULL;
 }

@@ -22,10 +22,19 @@ molq_status molq_json_check_keys(molq_json_ctx *c, json_t *obj,
                                  const char *const *allowed,
                                  const char *where);
 
+/* MOLQ_EKEY for an unknown key at `field`, suggesting the nearest key of
+ * the NULL-terminated lists a and b (b may be NULL) when one is close. */
+molq_status molq_json_unknown_key(molq_json_ctx *c, const char *field,
+                                  const char *key, const char *const *a,
+                                  const char *const *b);
+
 molq_status molq_json_number(molq_json_ctx *c, json_t *v, const char *field,
                              double *out);
+/* An integer (or an integral real such as 2.0) in [lo, hi]; anything else
+ * is refused naming the field (MOLQ_ETYPE not an integer, MOLQ_EVALUE out of
+ * range).  lo and hi must lie within int. */
 molq_status molq_json_int(molq_json_ctx *c, json_t *v, const char *field,
-                          int *out);
+                          long lo, long hi, int *out);
 molq_status molq_json_string(molq_json_ctx *c, json_t *v, const char *field,
                              const char **out);
 

@@ -63,14 +63,12 @@ static molq_status read_torsion(molq_json_ctx *c, molq_spec *s, json_t *e, size_
     }
     snprintf(name, sizeof name, "%ssymmetry_number", where);
     if ((v = json_object_get(e, "symmetry_number")) != NULL &&
-        (st = molq_json_int(c, v, name, &sigma)) != MOLQ_OK)
+        (st = molq_json_int(c, v, name, 1, MOLQ_MAX_SYMMETRY_NUMBER, &sigma)) != MOLQ_OK)
         return st;
     snprintf(name, sizeof name, "%sreplaces_vibration", where);
     if ((v = json_object_get(e, "replaces_vibration")) != NULL &&
-        (st = molq_json_int(c, v, name, &rep)) != MOLQ_OK)
+        (st = molq_json_int(c, v, name, 0, MOLQ_MAX_VIBRATIONS - 1, &rep)) != MOLQ_OK)
         return st;
-    if (v != NULL && rep < 0)
-        return molq_json_key_error(c, MOLQ_EVALUE, name, "must be an index >= 0");
     if ((st = molq_spec_add_torsion(s, x, sigma, rep, &idx)) != MOLQ_OK)
         return st == MOLQ_ELIMIT
                    ? molq_json_key_error(c, st, "torsions", "at most 8 torsions")
@@ -98,7 +96,7 @@ static molq_status read_torsion(molq_json_ctx *c, molq_spec *s, json_t *e, size_
                  jn == NULL ? "n" : "V");
         if (jn == NULL || jv == NULL)
             return molq_json_key_error(c, MOLQ_EKEY, name, "missing");
-        if ((st = molq_json_int(c, jn, name, &n)) != MOLQ_OK ||
+        if ((st = molq_json_int(c, jn, name, 1, MOLQ_MAX_TORSION_N, &n)) != MOLQ_OK ||
             (st = molq_json_number(c, jv, name, &x)) != MOLQ_OK)
             return st;
         if ((st = molq_spec_add_torsion_term(s, idx, n, x)) != MOLQ_OK)
@@ -173,7 +171,7 @@ static molq_status read_state(molq_json_ctx *c, molq_spec *s, json_t *e, size_t 
         return st;
     snprintf(name, sizeof name, "%sdegeneracy", where);
     if ((v = json_object_get(e, "degeneracy")) != NULL &&
-        (st = molq_json_int(c, v, name, &g)) != MOLQ_OK)
+        (st = molq_json_int(c, v, name, 1, MOLQ_MAX_DEGENERACY, &g)) != MOLQ_OK)
         return st;
     if ((st = molq_spec_add_diatomic_state(s, te, g, &idx)) != MOLQ_OK)
         return st == MOLQ_ELIMIT
@@ -246,11 +244,11 @@ static molq_status read_anh_list(molq_json_ctx *c, molq_spec *s, json_t *list,
                              "value(s)] (see the README)");
         json_array_foreach(row, m, v) {
             if (m < nidx) {
-                if (!json_is_integer(v) || json_integer_value(v) < 0 ||
-                    json_integer_value(v) > 100000)
-                    return molq_json_key_error(c, MOLQ_ETYPE, name, "mode indices are "
-                                     "integers >= 0 into 'vibrations'");
-                idx[m] = (size_t)json_integer_value(v);
+                int mi;
+                if ((st = molq_json_int(c, v, name, 0, MOLQ_MAX_VIBRATIONS - 1,
+                                        &mi)) != MOLQ_OK)
+                    return st;
+                idx[m] = (size_t)mi;
             } else if ((st = molq_json_number(c, v, name, &val[m - nidx])) !=
                        MOLQ_OK) {
                 return st;

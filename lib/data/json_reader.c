@@ -72,7 +72,7 @@ static molq_status read_pairs(molq_json_ctx *c, molq_spec *s, json_t *arr,
             return st;
         v = json_object_get(item, "degeneracy");
         snprintf(name, sizeof name, "%s[%zu].degeneracy", field, i);
-        if (v != NULL && (st = molq_json_int(c, v, name, &deg)) != MOLQ_OK)
+        if (v != NULL && (st = molq_json_int(c, v, name, 1, MOLQ_MAX_DEGENERACY, &deg)) != MOLQ_OK)
             return st;
         st = add(s, value, deg);
         if (st == MOLQ_ELIMIT)
@@ -117,7 +117,8 @@ static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
             for (a = molq_json_levels_keys; *a != NULL && !ok; a++)
                 ok = strcmp(*a, key) == 0;
             if (!ok)
-                return molq_json_key_error(c, MOLQ_EKEY, key, "unknown key");
+                return molq_json_unknown_key(c, key, key, entry_keys,
+                                             molq_json_levels_keys);
         }
     }
     if ((v = json_object_get(e, "formula")) != NULL) {
@@ -162,7 +163,8 @@ static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
                              "must be \"corrected\" or \"classical\"");
     }
     if ((v = json_object_get(e, "symmetry_number")) != NULL) {
-        if ((st = molq_json_int(c, v, "symmetry_number", &i)) != MOLQ_OK)
+        if ((st = molq_json_int(c, v, "symmetry_number", 1,
+                                MOLQ_MAX_SYMMETRY_NUMBER, &i)) != MOLQ_OK)
             return st;
         molq_spec_set_symmetry_number(s, i);
     }
@@ -215,7 +217,7 @@ static const char *const top_keys[] = {"schema_version", "description",
                                        "species", NULL};
 
 static molq_status read_root(molq_json_ctx *c, json_t *root, molq_spec **specs,
-                             size_t *n)
+                             size_t *n, molq_warnlist *warn)
 {
     json_t *list, *v, *e;
     size_t i;
@@ -227,11 +229,16 @@ static molq_status read_root(molq_json_ctx *c, json_t *root, molq_spec **specs,
         return st;
     if ((v = json_object_get(root, "schema_version")) != NULL) {
         int ver;
-        if ((st = molq_json_int(c, v, "schema_version", &ver)) != MOLQ_OK)
+        if ((st = molq_json_int(c, v, "schema_version", 1, 1000000, &ver)) != MOLQ_OK)
             return st;
         if (ver != SCHEMA_VERSION)
             return molq_json_key_error(c, MOLQ_EVALUE, "schema_version",
                              "this library reads schema version 1");
+    } else if (warn != NULL &&
+               molq_warn(warn, "species file: field 'schema_version': missing; "
+                         "read as version 1 (add \"schema_version\": 1 so a "
+                         "later molq can tell the format)") != MOLQ_OK) {
+        return MOLQ_ENOMEM;
     }
     list = json_object_get(root, "species");
     if (list == NULL)
@@ -261,7 +268,7 @@ static molq_status read_root(molq_json_ctx *c, json_t *root, molq_spec **specs,
 
 molq_status molq_json_read_specs(const char *text, size_t len,
                                  molq_spec ***specs_out, size_t *n_out,
-                                 char *err, size_t errlen)
+                                 molq_warnlist *warn, char *err, size_t errlen)
 {
     json_error_t jerr;
     json_t *root, *list;
@@ -277,6 +284,12 @@ molq_status molq_json_read_specs(const char *text, size_t len,
         molq_errf(err, errlen, "species file: %zu bytes is over the limit of "
                   "%u", len, MOLQ_MAX_FILE_BYTES);
         return MOLQ_ELIMIT;
+    }
+    /* a UTF-8 byte-order mark (written by some editors) is not JSON but
+     * carries no meaning in UTF-8: skip it */
+    if (len >= 3 && memcmp(text, "\xEF\xBB\xBF", 3) == 0) {
+        text += 3;
+        len -= 3;
     }
     root = json_loadb(text, len, JSON_REJECT_DUPLICATES, &jerr);
     /* jansson reports most allocation failures with their own code, and a
@@ -305,7 +318,7 @@ molq_status molq_json_read_specs(const char *text, size_t len,
         json_decref(root);
         return MOLQ_ENOMEM;
     }
-    st = read_root(&c, root, specs, &n);
+    st = read_root(&c, root, specs, &n, warn);
     json_decref(root);
     if (st != MOLQ_OK) {
         molq_specs_free(specs, n);

@@ -6,6 +6,7 @@
 
 #include <stddef.h>
 
+#include "core/warnlist.h"
 #include "modes/modes.h" /* MOLQ_DUNHAM_K, MOLQ_DUNHAM_L */
 #include "molq/molq.h"
 
@@ -122,9 +123,11 @@ molq_model molq_spec_default_model(const molq_spec *s);
 
 /* Check every field; on success *molar_mass receives the molar mass to use
  * (set, or computed from the formula), kg/mol.  Messages name the species
- * and the field with the key names of the species file. */
+ * and the field with the key names of the species file.  Plausibility
+ * findings that do not stop the build (a molar mass no molecule has, or one
+ * that disagrees with the formula) are appended to `warn` (may be NULL). */
 molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
-                               char *err, size_t errlen);
+                               molq_warnlist *warn, char *err, size_t errlen);
 
 /* Molar mass in kg/mol from a formula such as "CO2", "CH3OH", "Ca(OH)2",
  * using IUPAC standard atomic weights.  MOLQ_EVALUE with a message on an

@@ -66,9 +66,10 @@ static molq_status validate_states(const molq_spec *s, char *err,
                  "must be a finite number >= 0 cm^-1 (got %g)", nm, i, d->te);
         if (d->te == 0.0)
             ground = 1;
-        if (d->g < 1)
+        if (d->g < 1 || d->g > MOLQ_MAX_DEGENERACY)
             FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
-                 "degeneracy': must be an integer >= 1 (got %d)", nm, i, d->g);
+                 "degeneracy': must be an integer from 1 to %d (got %d)", nm, i,
+                 MOLQ_MAX_DEGENERACY, d->g);
         for (k = 0; k < MOLQ_DUNHAM_K; k++)
             for (l = 0; l < MOLQ_DUNHAM_L; l++)
                 if (!isfinite(d->y[k][l]))
@@ -229,10 +230,10 @@ static molq_status validate_torsions(const molq_spec *s, char *err,
                  "rotational_constant': %g cm^-1 is below the supported 1e-3 "
                  "cm^-1 (a rotor that heavy is classical: use a harmonic "
                  "vibration or a free-rotor limit)", nm, i, t->f);
-        if (t->sigma < 1)
+        if (t->sigma < 1 || t->sigma > MOLQ_MAX_SYMMETRY_NUMBER)
             FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
-                 "symmetry_number': must be an integer >= 1 (got %d)", nm, i,
-                 t->sigma);
+                 "symmetry_number': must be an integer from 1 to %d (got %d)",
+                 nm, i, MOLQ_MAX_SYMMETRY_NUMBER, t->sigma);
         {
             double vsum = 0.0;
             for (k = 0; k < t->nterms; k++)
@@ -244,7 +245,7 @@ static molq_status validate_torsions(const molq_spec *s, char *err,
                      "torsion is a harmonic vibration", nm, i, vsum / t->f);
         }
         for (k = 0; k < t->nterms; k++) {
-            if (t->terms[k].n < 1 || t->terms[k].n > 12)
+            if (t->terms[k].n < 1 || t->terms[k].n > MOLQ_MAX_TORSION_N)
                 FAIL(MOLQ_EVALUE, "species '%s': field 'torsions[%zu]."
                      "barrier[%zu].n': must be an integer from 1 to 12 (got "
                      "%d)", nm, i, k, t->terms[k].n);
@@ -266,8 +267,42 @@ static molq_status validate_torsions(const molq_spec *s, char *err,
     return MOLQ_OK;
 }
 
+/* Plausibility of a molar mass that passed the hard bounds: a warning,
+ * not an error, since a user may model an isotopologue or a pseudo-species
+ * on purpose.  MOLQ_ENOMEM only. */
+static molq_status check_mass(const molq_spec *s, double m, molq_warnlist *warn)
+{
+    const char *nm = s->name;
+    double mf;
+    const char *unit = s->mass_in_g ? "g/mol" : "kg/mol";
+    double given = s->mass_in_g ? m * 1e3 : m;
+    if (warn == NULL)
+        return MOLQ_OK;
+    if (s->formula != NULL &&
+        molq_formula_molar_mass(s->formula, &mf, NULL, 0) == MOLQ_OK) {
+        /* 1 %: far beyond isotope effects on standard atomic weights but
+         * well below a missing or extra atom (H is 1 % of 100 g/mol) */
+        if (fabs(m - mf) > 0.01 * mf)
+            return molq_warn(warn, "species '%s': field 'molar_mass': %g %s "
+                             "differs by %.3g %% from the %g %s of its "
+                             "formula '%s'", nm, given, unit,
+                             100.0 * fabs(m - mf) / mf,
+                             s->mass_in_g ? mf * 1e3 : mf, unit, s->formula);
+        return MOLQ_OK;
+    }
+    /* no molecule or atom is lighter than the hydrogen atom's 1.008 g/mol
+     * (a bare proton 1.007 g/mol, the electron 5.486e-4 g/mol); anything
+     * else below 1 g/mol is most likely kg/mol passed as g/mol */
+    if (m < 1.0e-3 && fabs(m - MOLQ_M_E_MOLAR) > 0.01 * MOLQ_M_E_MOLAR)
+        return molq_warn(warn, "species '%s': field 'molar_mass': %g %s is "
+                         "lighter than any atom or molecule (hydrogen: 1.008 "
+                         "g/mol) and is not the electron's; check the unit",
+                         nm, given, unit);
+    return MOLQ_OK;
+}
+
 molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
-                               char *err, size_t errlen)
+                               molq_warnlist *warn, char *err, size_t errlen)
 {
     const char *nm = s->name;
     size_t i, len = strlen(nm);
@@ -298,6 +333,10 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
                  "least the electron's, 5.48579909065e-7 kg/mol (got %g %s)",
                  nm, given, unit);
         *molar_mass = s->molar_mass;
+        if (check_mass(s, s->molar_mass, warn) != MOLQ_OK) {
+            molq_errf(err, errlen, "species '%s': out of memory", nm);
+            return MOLQ_ENOMEM;
+        }
     } else if (s->formula != NULL) {
         char sub[200];
         if (molq_formula_molar_mass(s->formula, molar_mass, sub, sizeof sub)
@@ -314,9 +353,10 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
     if (s->rotor != MOLQ_ROTOR_CORRECTED && s->rotor != MOLQ_ROTOR_CLASSICAL)
         FAIL(MOLQ_EVALUE, "species '%s': field 'rotor': must be corrected or "
              "classical (got code %d)", nm, s->rotor);
-    if (s->sigma < 1)
+    if (s->sigma < 1 || s->sigma > MOLQ_MAX_SYMMETRY_NUMBER)
         FAIL(MOLQ_EVALUE, "species '%s': field 'symmetry_number': must be an "
-             "integer >= 1 (got %d)", nm, s->sigma);
+             "integer from 1 to %d (got %d)", nm, MOLQ_MAX_SYMMETRY_NUMBER,
+             s->sigma);
     if (s->structure == MOLQ_ATOM && s->sigma != 1)
         FAIL(MOLQ_EVALUE, "species '%s': field 'symmetry_number': an atom has "
              "no rotation, so it must be 1 (got %d)", nm, s->sigma);
@@ -417,9 +457,10 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
                  ": must be a finite number > 0 cm^-1; a zero or imaginary "
                  "(negative) mode is not a vibration (got %g)", nm, i,
                  s->vib_wn[i]);
-        if (s->vib_deg[i] < 1)
+        if (s->vib_deg[i] < 1 || s->vib_deg[i] > MOLQ_MAX_DEGENERACY)
             FAIL(MOLQ_EVALUE, "species '%s': field 'vibrations[%zu].degeneracy'"
-                 ": must be an integer >= 1 (got %d)", nm, i, s->vib_deg[i]);
+                 ": must be an integer from 1 to %d (got %d)", nm, i,
+                 MOLQ_MAX_DEGENERACY, s->vib_deg[i]);
     }
 
     for (i = 0; i < s->nel; i++) {
@@ -427,10 +468,10 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
             FAIL(MOLQ_EVALUE, "species '%s': field 'electronic_levels[%zu]."
                  "energy': must be a finite number >= 0 cm^-1 above the ground "
                  "level (got %g)", nm, i, s->el_e[i]);
-        if (s->el_g[i] < 1)
+        if (s->el_g[i] < 1 || s->el_g[i] > MOLQ_MAX_DEGENERACY)
             FAIL(MOLQ_EVALUE, "species '%s': field 'electronic_levels[%zu]."
-                 "degeneracy': must be an integer >= 1 (got %d)", nm, i,
-                 s->el_g[i]);
+                 "degeneracy': must be an integer from 1 to %d (got %d)", nm, i,
+                 MOLQ_MAX_DEGENERACY, s->el_g[i]);
         if (s->el_e[i] == 0.0)
             have_ground = 1;
     }

@@ -248,7 +248,9 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
     st = model == MOLQ_MODEL_LEVELS ? build_levels(sp, spec, err, errlen)
                                     : build_rrho(sp, spec, 0, err, errlen);
     /* below the Boltzmann limit at the standard pressure the results
-     * would be those of no real gas (see molq_species_t_min) */
+     * would be those of no real gas (see molq_species_t_min); the internal
+     * modes alone keep the models' own limit (molq_eval_mode) */
+    sp->t_min_internal = sp->t_min;
     sp->t_min = fmax(sp->t_min,
                      molq_translation_boltzmann_t(
                          molar_mass, ground_degeneracy(spec), MOLQ_P_STANDARD));
@@ -272,6 +274,7 @@ void molq_species_destroy(molq_species *sp)
         free(sp->modes[i].owned2);
     }
     molq_spec_free(sp->spec);
+    molq_warn_free(&sp->warnings);
     free(sp->name);
     free(sp->formula);
     free(sp->source);

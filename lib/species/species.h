@@ -21,10 +21,12 @@ struct molq_species_s {
     int has_formation_enthalpy;
     double formation_enthalpy; /* J/mol at 298.15 K (0 when absent) */
     double h298_minus_h0;      /* J/mol, filled by molq_thermo_prepare */
-    double t_min;              /* K, lowest valid temperature */
+    double t_min;              /* K, lowest valid temperature of the gas */
+    double t_min_internal;     /* K, the models' own limit (internal modes) */
     size_t nmodes;
     molq_mode modes[MOLQ_MAX_MODES];
     double *arrays; /* one block: vib theta, vib g, el theta, el g */
+    molq_warnlist warnings; /* plausibility findings, frozen at creation */
 };
 
 /* Build a species with `model` from a spec that molq_spec_validate

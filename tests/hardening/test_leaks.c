@@ -165,7 +165,7 @@ static const json_case json_cases[] = {
     FILE_(MOLQ_ETYPE, "entry", "{\"species\": [" GOOD1 ", 42]}"),
     FILE_(MOLQ_ETYPE, "schema_version", "{\"schema_version\": \"1\", "
                                         "\"species\": []}"),
-    FILE_(MOLQ_ETYPE, "schema_version", "{\"schema_version\": 1.0, "
+    FILE_(MOLQ_ETYPE, "schema_version", "{\"schema_version\": 1.5, "
                                         "\"species\": []}"),
     /* MOLQ_EKEY / MOLQ_EVALUE at file level */
     FILE_(MOLQ_EKEY, "molecules", "{\"molecules\": []}"),

@@ -324,9 +324,13 @@ static void report_line(const char *fmt, const char *label, const char *prop,
 
 /* Check one status/value pair against the rules above.  `v` is the value
  * written (UNTOUCHED if the call left it alone); `s_at` the entropy at the
- * same state when known (NAN otherwise). */
-static void judge(const subject *sj, molq_property prop, double T, double p,
-                  molq_status st, double v, double s_at, int untouched_rule)
+ * same state when known (NAN otherwise).  `internal`: the value is an
+ * internal mode's (molq_eval_mode), which is evaluated down to its model's
+ * own limit, at or below molq_species_t_min (molq.h): below t_min it may
+ * succeed (finite) or give MOLQ_ERANGE. */
+static void judge_at(const subject *sj, molq_property prop, double T,
+                     double p, molq_status st, double v, double s_at,
+                     int untouched_rule, int internal)
 {
     const char *pn = molq_property_name(prop);
     n_calls++;
@@ -337,6 +341,20 @@ static void judge(const subject *sj, molq_property prop, double T, double p,
         if (untouched_rule)
             ck_assert_msg(v == UNTOUCHED, "%s %s at T=%g p=%g: output "
                           "written on failure", sj->label, pn, T, p);
+        return;
+    }
+    if (internal && T < molq_species_t_min(sj->sp)) {
+        if (st == MOLQ_OK) {
+            ck_assert_msg(isfinite(v), "%s %s mode at T=%g: MOLQ_OK with %g",
+                          sj->label, pn, T, v);
+            n_ok++;
+            return;
+        }
+        ck_assert_msg(st == MOLQ_ERANGE, "%s %s mode at T=%g: %s", sj->label,
+                      pn, T, molq_status_string(st));
+        if (untouched_rule)
+            ck_assert_msg(v == UNTOUCHED, "%s %s at T=%g: output written on "
+                          "failure", sj->label, pn, T);
         return;
     }
     if (T < molq_species_t_min(sj->sp)) {
@@ -401,6 +419,12 @@ static void judge(const subject *sj, molq_property prop, double T, double p,
     ck_abort_msg("%s %s at T=%g K p=%g Pa: MOLQ_ERANGE although the value "
                  "is finite (bounds: 5/2 R <= cp <= %g R)", sj->label, pn, T,
                  p, sj->c_hi);
+}
+
+static void judge(const subject *sj, molq_property prop, double T, double p,
+                  molq_status st, double v, double s_at, int untouched_rule)
+{
+    judge_at(sj, prop, T, p, st, v, s_at, untouched_rule, 0);
 }
 
 /* ------------------------------------------------------------------------ */
@@ -505,7 +529,8 @@ static void sweep_modes(const subject *sj, double T, double p,
             double v = UNTOUCHED;
             molq_status st =
                 molq_eval_mode(sj->sp, m, T, p, supported[k], &v);
-            judge(sj, supported[k], T, p, st, v, NAN, 1);
+            judge_at(sj, supported[k], T, p, st, v, NAN, 1,
+                     kind != MOLQ_MODE_TRANSLATION);
             if (st == MOLQ_OK) {
                 sum[k] += v;
                 mag[k] += fabs(v);

@@ -758,8 +758,9 @@ class Species(_Immutable):
 
     @property
     def warnings(self):
-        """Non-fatal remarks of the library about this species' data, a
-        tuple of str (empty when the library does not report any)."""
+        """The library's warnings about this species' data, a tuple of str,
+        each naming the species and field (e.g. a molar mass more than 1 %
+        off its formula's); empty when there are none."""
         return _warnings(self._ptr, "molq_species_warning_count",
                          "molq_species_warning")
 
@@ -1374,13 +1375,8 @@ def _constants_entry(name, *, structure, molar_mass, symmetry_number,
 
 
 def _warnings(ptr, count_name, item_name):
-    """The handle's warnings through the library's warning list, when the
-    loaded library has one (molq_*_warning_count / molq_*_warning)."""
-    count = getattr(_L, count_name, None) if hasattr(_L, count_name) \
-        else None
-    item = getattr(_L, item_name, None) if hasattr(_L, item_name) else None
-    if count is None or item is None or count.argtypes is None:
-        return ()
+    """The handle's warnings (molq_*_warning_count / molq_*_warning)."""
+    count, item = getattr(_L, count_name), getattr(_L, item_name)
     return tuple(_decode(item(ptr, i)) for i in range(count(ptr)))
 
 
@@ -1627,8 +1623,9 @@ class Database(_Immutable):
 
     @property
     def warnings(self):
-        """Non-fatal remarks of the library about the file, a tuple of str
-        (empty when the library does not report any)."""
+        """The library's warnings about the file (a missing schema_version)
+        and then about each species, a tuple of str; the database is
+        complete and usable, the warnings say what to check."""
         return _warnings(self._ptr, "molq_db_warning_count",
                          "molq_db_warning")
 

@@ -157,20 +157,19 @@ for _name, _res, _args in _PROTOTYPES:
     _fn.restype = _res
     _fn.argtypes = _args
 
-# Functions of newer libraries, declared only when present (the binding
-# works without them): the warning lists of species and databases.
-_OPTIONAL_PROTOTYPES = [
-    ("molq_species_warning_count", _size, [_ptr]),
-    ("molq_species_warning", _str, [_ptr, _size]),
-    ("molq_db_warning_count", _size, [_ptr]),
-    ("molq_db_warning", _str, [_ptr, _size]),
-]
-
-for _name, _res, _args in _OPTIONAL_PROTOTYPES:
-    _fn = getattr(lib, _name, None)
-    if _fn is not None:
-        _fn.restype = _res
-        _fn.argtypes = _args
+# The warning lists of species and databases.
+for _name, _res, _args in [
+        ("molq_species_warning_count", _size, [_ptr]),
+        ("molq_species_warning", _str, [_ptr, _size]),
+        ("molq_db_warning_count", _size, [_ptr]),
+        ("molq_db_warning", _str, [_ptr, _size])]:
+    try:
+        _fn = getattr(lib, _name)
+    except AttributeError as _exc:
+        raise ImportError("molq: the loaded library %s lacks %s(); it is too "
+                          "old or not libmolq" % (lib._name, _name)) from _exc
+    _fn.restype = _res
+    _fn.argtypes = _args
 
 LIBRARY_PATH = lib._name
 VERSION_NUMBER = lib.molq_version_number()

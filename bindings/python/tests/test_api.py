@@ -1,6 +1,7 @@
 """Database and Species surface: names, units at the boundary, version,
 and the usage example in the package docstring."""
 
+import math
 import contextlib
 import io
 import re
@@ -52,7 +53,13 @@ class DatabaseSurface(unittest.TestCase):
         self.assertFalse(own.has_formation_enthalpy)
         self.assertEqual(own.source, "invented")
         self.assertEqual(own.formula, "")
-        self.assertEqual(own.t_min, 0.0)
+        # An atom has no model limit: t_min is the Boltzmann-gas limit at
+        # 1 bar, n lambda^3 = g0 (common practice, no source), computed
+        # here independently: 1.87 K for mass 4 g/mol.
+        h, k, na = 6.62607015e-34, 1.380649e-23, 6.02214076e23
+        m = 4.0e-3 / na
+        tb = (1e5 * h**3 / (k**2.5 * (2 * math.pi * m) ** 1.5)) ** 0.4
+        self.assertAlmostEqual(own.t_min, tb, delta=1e-9 * tb)
         # An atom translates but neither rotates nor vibrates; a diatomic
         # does all three, as separate modes under the rigid rotor /
         # harmonic model and as one rovibronic level sum under "levels".

@@ -61,6 +61,33 @@ class BadSpeciesText(unittest.TestCase):
                              species_text(GOOD_ENTRY % "1",
                                           GOOD_ENTRY % "2"))
 
+    def test_integer_bounds_and_integral_floats(self):
+        # Integers past a field's documented bound are refused naming the
+        # field (they were clamped to 1e9 before); 2.0 reads as 2.
+        exc = self.assertMolqError(molq.EVALUE, ["Qx", "symmetry_number",
+                                                 "from 1 to 100000"],
+                                   species_text(GOOD_ENTRY % "4294967298"))
+        self.assertNotIn("1000000000", exc.message)
+        a = molq.Database.from_string(species_text(GOOD_ENTRY % "1"))
+        b = molq.Database.from_string(species_text(GOOD_ENTRY % "1.0"))
+        self.assertEqual(a["Qx"].s(300.0), b["Qx"].s(300.0))
+
+    def test_warnings(self):
+        # A file without schema_version loads, with a warning naming the
+        # field; a molar mass 20 % off its formula's (CO: 28.010 g/mol
+        # from IUPAC standard atomic weights, from memory) is warned about
+        # on the species and on the database.
+        db = molq.Database.from_string(
+            '{"species": [{"name": "Qc", "formula": "CO", "molar_mass": '
+            '33.6, "structure": "linear", "rotational_constants": [1.9], '
+            '"vibrations": [{"wavenumber": 2170}]}]}')
+        self.assertEqual(len(db.warnings), 2)
+        self.assertIn("'schema_version': missing", db.warnings[0])
+        self.assertIn("species 'Qc': field 'molar_mass'", db.warnings[1])
+        self.assertEqual(db["Qc"].warnings, (db.warnings[1],))
+        self.assertEqual(molq.Database.builtin().warnings, ())
+        self.assertEqual(molq.Database.builtin()["N2"].warnings, ())
+
     def test_good_text_reads(self):
         db = molq.Database.from_string(species_text(GOOD_ENTRY % "1"))
         self.assertEqual(db.names(), ["Qx"])
