@@ -82,13 +82,13 @@
 #define C2_CM_K (100.0 * 6.62607015e-34 * 299792458.0 / 1.380649e-23)
 
 /* Vibration entries of the species benchmarked, copied from
- * data/species.json (the source of the built-in set); check_vibrations()
+ * data/species (the source of the built-in set); check_vibrations()
  * confirms at run time that they still reproduce molq's vibrational cv. */
 typedef struct {
     const char *name;      /* printed label */
     const char *species;   /* name in the built-in set */
     molq_model model;      /* model to benchmark */
-    int linear;            /* structure in data/species.json */
+    int linear;            /* structure in data/species */
     size_t nvib;           /* vibration entries = exp() calls per T */
     double wavenumber[4];  /* cm^-1 */
     int degeneracy[4];
@@ -551,7 +551,7 @@ int main(int argc, char **argv)
         if (b->model == MOLQ_MODEL_RRHO)
             check(check_vibrations(u->sp, b), b->name,
                   "hard-coded wavenumbers do not reproduce molq's vibrational "
-                  "cv (data/species.json changed?)");
+                  "cv (data/species changed?)");
         for (i = 0; i < b->nvib; i++)
             u->theta[i] = C2_CM_K * b->wavenumber[i];
 

@@ -59,7 +59,7 @@ fi
 # (or a missing target) means a full rebuild; it takes well under a minute.
 if [ "$FORCE" = 0 ] && [ -f "$B/.stamp" ]; then
     stale=$(find lib include tools/args.c tools/args.h tools/embed_json.py \
-        data/species.json fuzz -newer "$B/.stamp" \( -name '*.c' -o -name '*.h' \
+        data/species fuzz -newer "$B/.stamp" \( -name '*.c' -o -name '*.h' \
         -o -name '*.py' -o -name '*.json' -o -name 'meson.build' -o -name '*.sh' \) \
         -print 2>/dev/null | head -n 1)
     for t in $TARGETS; do [ -x "$B/$t" ] || stale=yes; done
@@ -79,7 +79,8 @@ SRCS=$(for mb in $(find lib -name meson.build); do
 done | sort -u)
 [ -n "$SRCS" ] || { echo "fuzz/build.sh: no sources found in lib/meson.build" >&2; exit 1; }
 
-python3 tools/embed_json.py data/species.json "$B/builtin_data.c"
+python3 tools/embed_json.py "$B/builtin_data.c" "$B/builtin_species.json" \
+    data/species/*.json
 
 # Public functions that may not exist yet in every checkout: the targets
 # call them only when molq.h declares them.

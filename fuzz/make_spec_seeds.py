@@ -4,7 +4,7 @@
 The target reads its input as a little program (see fuzz/spec_api.c and
 fuzz/fuzz_util.h); this script encodes readable descriptions into that
 byte format so the seeds start from real molecules and from the edge cases
-the setters must refuse.  Constants are those of data/species.json; the
+the setters must refuse.  Constants are those of data/species/*.json; the
 "odd" seeds are invented.  Run it again after changing the input format:
 
     python3 fuzz/make_spec_seeds.py

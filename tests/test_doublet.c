@@ -221,7 +221,7 @@ END_TEST
  * spin-rotation splitting, tolerance 0.5 cm^-1.  NO: case (a) (common
  * practice) puts 2Pi3/2 J = 3/2 at A + B0 above 2Pi1/2 J = 1/2 (A = 123.1
  * from section 4.5, B0 = Be - alpha_e/2 with Be from re as in data/
- * species.json), and Hill-Van Vleck adds the second-order uncoupling
+ * data/species), and Hill-Van Vleck adds the second-order uncoupling
  * 3 B0^2 / (A - 2 B0) (expanding its square root): tolerance 0.005 cm^-1
  * for the higher orders. */
 #define NO_B0 (1.70493 - 0.0171 / 2)

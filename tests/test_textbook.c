@@ -101,7 +101,7 @@ START_TEST(harmonic_mode_curves)
 {
     const molq_species *sp = tu_species_model("N2", MOLQ_MODEL_RRHO);
     size_t iv = tu_mode_index(sp, MOLQ_MODE_VIBRATION);
-    double theta = T_C2 * 2329.915; /* N2 fundamental in data/species.json */
+    double theta = T_C2 * 2329.915; /* N2 fundamental in data/species */
     double T;
     for (T = 20.0; T < 2e5; T *= 1.3) {
         double x = theta / T, cv, u, s;

@@ -264,9 +264,16 @@ MOLQ_API molq_status molq_spec_new(const char *name, molq_spec **out);
 /* Free a description.  Accepts NULL.  Added in 0.1.0. */
 MOLQ_API void molq_spec_free(molq_spec *spec);
 
-/* Set the chemical formula (free text such as "CO2", copied).  Used for
- * display, and for the molar mass when none is set (standard atomic
- * weights).  @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM.  Added in 0.1.0. */
+/* Set the chemical formula (copied): element symbols with counts and
+ * brackets, and an optional trailing charge: "CO2", "Ca(OH)2", "N2+",
+ * "O-", "Ca+2" (one sign and a count, or the sign repeated), or "e-" for
+ * the electron.  It gives the species' element composition and charge
+ * (molq_species_element, molq_species_charge) and, when no molar mass is
+ * set, its molar mass (IUPAC standard atomic weights; an ion's is its
+ * atoms' less charge x the electron's molar mass).  A formula that cannot
+ * be read is an error at molq_species_create when the molar mass depends
+ * on it, otherwise a warning (the species then has no composition).
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM.  Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_formula(molq_spec *spec,
                                            const char *formula);
 
@@ -326,6 +333,16 @@ MOLQ_API molq_status molq_spec_add_vibration(molq_spec *spec,
 MOLQ_API molq_status molq_spec_add_electronic_level(molq_spec *spec,
                                                     double energy_cm1,
                                                     int degeneracy);
+
+/* Set the temperature range, in K, over which the species' data have been
+ * checked against published tables (0 < t_low < t_high <= 1e6, judged at
+ * molq_species_create; the species-file key is "validated_range").
+ * Informational: evaluation is not limited to it (see
+ * molq_species_validated_range).  @return MOLQ_OK or MOLQ_EARG.
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_set_validated_range(molq_spec *spec,
+                                                   double t_low,
+                                                   double t_high);
 
 /* Set the standard enthalpy of formation at 298.15 K in J/mol.
  * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
@@ -528,6 +545,38 @@ MOLQ_API const char *molq_species_formula(const molq_species *species);
 /* @return the free-text source of a species' data as given in its file
  *         ("" when none), borrowed; NULL if species is NULL.  Added 0.1.0. */
 MOLQ_API const char *molq_species_source(const molq_species *species);
+
+/* @return the charge in elementary charges from the formula (+1 for "N2+",
+ *         -1 for "e-"), 0 when neutral, without a readable formula, or for
+ *         a NULL species.  Thread-safe.  Added in 0.1.0. */
+MOLQ_API int molq_species_charge(const molq_species *species);
+
+/* @return the number of distinct elements of the formula (2 for "CO2", 0
+ *         for "e-", without a readable formula or for NULL).  Thread-safe.
+ *         Added in 0.1.0. */
+MOLQ_API size_t molq_species_element_count(const molq_species *species);
+
+/* Element `index` (0 .. count-1, in order of first appearance in the
+ * formula): its symbol (a static string such as "C") and the number of its
+ * atoms in one molecule.
+ * @return MOLQ_OK, or MOLQ_EARG (NULL pointer, index out of range; outputs
+ *         untouched).  Thread-safe.  Added in 0.1.0. */
+MOLQ_API molq_status molq_species_element(const molq_species *species,
+                                          size_t index, const char **symbol,
+                                          long *count);
+
+/* The temperature range, K, over which the species' data were checked
+ * against published tables (for the built-in set: the tables' range, see
+ * docs/validation.md).  Evaluation is not limited to it: between
+ * molq_species_t_min and t_low, and above t_high, the calls return the
+ * model's values with MOLQ_OK, without a published check; above t_high a
+ * model can miss physics that matters there (ionisation, further
+ * electronic states, dissociation of the molecules).
+ * @return MOLQ_OK, MOLQ_ENOTFOUND (the data state no range; outputs
+ *         untouched), MOLQ_EARG.  Thread-safe.  Added in 0.1.0. */
+MOLQ_API molq_status molq_species_validated_range(const molq_species *species,
+                                                  double *t_low,
+                                                  double *t_high);
 
 /* @return the molar mass in kg/mol, or 0 if species is NULL.  Added 0.1.0. */
 MOLQ_API double molq_species_molar_mass(const molq_species *species);
@@ -757,6 +806,13 @@ MOLQ_API const molq_species *molq_db_species(const molq_db *db, size_t index);
  * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
 MOLQ_API molq_status molq_db_find(const molq_db *db, const char *name,
                                   const molq_species **out);
+
+/* Find the first species (in file order) whose formula is exactly
+ * `formula` (as given, e.g. "CO2"; no normalisation).  *out is borrowed.
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
+MOLQ_API molq_status molq_db_find_formula(const molq_db *db,
+                                          const char *formula,
+                                          const molq_species **out);
 
 /* Warnings of a database: first those about the file itself (a missing
  * schema_version), then every species' warnings in file order (the same

@@ -254,3 +254,17 @@ const char *molq_db_warning(const molq_db *db, size_t index)
 {
     return db ? molq_warn_get(&db->warnings, index) : NULL;
 }
+
+molq_status molq_db_find_formula(const molq_db *db, const char *formula,
+                                 const molq_species **out)
+{
+    size_t i;
+    if (db == NULL || formula == NULL || out == NULL)
+        return MOLQ_EARG;
+    for (i = 0; i < db->n; i++)
+        if (strcmp(db->sp[i]->formula, formula) == 0) {
+            *out = db->sp[i];
+            return MOLQ_OK;
+        }
+    return MOLQ_ENOTFOUND;
+}

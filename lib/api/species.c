@@ -131,3 +131,35 @@ const char *molq_species_warning(const molq_species *sp, size_t index)
 {
     return sp ? molq_warn_get(&sp->warnings, index) : NULL;
 }
+
+int molq_species_charge(const molq_species *sp)
+{
+    return sp ? sp->comp.charge : 0;
+}
+
+size_t molq_species_element_count(const molq_species *sp)
+{
+    return sp ? sp->comp.n : 0;
+}
+
+molq_status molq_species_element(const molq_species *sp, size_t index,
+                                 const char **symbol, long *count)
+{
+    if (sp == NULL || symbol == NULL || count == NULL || index >= sp->comp.n)
+        return MOLQ_EARG;
+    *symbol = sp->comp.el[index].symbol;
+    *count = sp->comp.el[index].count;
+    return MOLQ_OK;
+}
+
+molq_status molq_species_validated_range(const molq_species *sp,
+                                         double *t_low, double *t_high)
+{
+    if (sp == NULL || t_low == NULL || t_high == NULL)
+        return MOLQ_EARG;
+    if (!sp->has_range)
+        return MOLQ_ENOTFOUND;
+    *t_low = sp->range_lo;
+    *t_high = sp->range_hi;
+    return MOLQ_OK;
+}

@@ -30,15 +30,17 @@ static const struct {
 };
 
 #define MAX_DEPTH 8
+#define NWEIGHTS (sizeof weights / sizeof weights[0])
+#define MAX_ATOMS 1000000L /* atoms of one element in one formula */
 
-static double lookup(const char *sym, size_t len)
+static int lookup_index(const char *sym, size_t len)
 {
     size_t i;
-    for (i = 0; i < sizeof weights / sizeof weights[0]; i++)
+    for (i = 0; i < NWEIGHTS; i++)
         if (strlen(weights[i].sym) == len &&
             strncmp(weights[i].sym, sym, len) == 0)
-            return weights[i].ar;
-    return 0.0;
+            return (int)i;
+    return -1;
 }
 
 static long read_count(const char **p)
@@ -55,21 +57,60 @@ static long read_count(const char **p)
     return n;
 }
 
-molq_status molq_formula_molar_mass(const char *formula, double *out,
-                                    char *err, size_t errlen)
+/* Trailing charge: one or more '+' (or '-'), or one sign and a count. */
+static int read_charge(const char *p, int *charge)
 {
-    double stack[MAX_DEPTH + 1] = {0.0};
-    int depth = 0;
+    int sign, n = 0;
+    if (*p != '+' && *p != '-')
+        return 0;
+    sign = *p == '+' ? 1 : -1;
+    if (isdigit((unsigned char)p[1])) {
+        long c;
+        p++;
+        c = read_count(&p);
+        if (c <= 0 || c > 100 || *p != '\0')
+            return 0;
+        *charge = sign * (int)c;
+        return 1;
+    }
+    while (*p == (sign > 0 ? '+' : '-')) {
+        if (++n > 100)
+            return 0;
+        p++;
+    }
+    if (*p != '\0')
+        return 0;
+    *charge = sign * n;
+    return 1;
+}
+
+molq_status molq_formula_parse(const char *formula, molq_composition *out,
+                               char *err, size_t errlen)
+{
+    /* counts per element of the weight table, one row per open bracket */
+    long stack[MAX_DEPTH + 1][NWEIGHTS];
+    int order[NWEIGHTS]; /* elements in order of first appearance */
+    size_t norder = 0, i;
+    int depth = 0, charge = 0;
+    double mass = 0.0;
     const char *p = formula;
+    memset(stack[0], 0, sizeof stack[0]);
+    if (strcmp(formula, "e-") == 0) { /* the electron */
+        memset(out, 0, sizeof *out);
+        out->charge = -1;
+        out->molar_mass = MOLQ_M_E_MOLAR;
+        return MOLQ_OK;
+    }
     while (*p != '\0') {
         if (isupper((unsigned char)*p)) {
             const char *s = p++;
-            double ar;
+            int k;
             long n;
+            size_t j;
             while (islower((unsigned char)*p))
                 p++;
-            ar = lookup(s, (size_t)(p - s));
-            if (ar == 0.0) {
+            k = lookup_index(s, (size_t)(p - s));
+            if (k < 0) {
                 molq_errf(err, errlen, "unknown element '%.*s' in formula "
                           "'%s'", (int)(p - s), s, formula);
                 return MOLQ_EVALUE;
@@ -77,11 +118,17 @@ molq_status molq_formula_molar_mass(const char *formula, double *out,
             n = read_count(&p);
             if (n <= 0)
                 goto bad;
-            stack[depth] += ar * (double)n;
+            stack[depth][k] += n;
+            if (stack[depth][k] > MAX_ATOMS)
+                goto bad;
+            for (j = 0; j < norder && order[j] != k; j++)
+                ;
+            if (j == norder)
+                order[norder++] = k;
         } else if (*p == '(') {
             if (++depth > MAX_DEPTH)
                 goto bad;
-            stack[depth] = 0.0;
+            memset(stack[depth], 0, sizeof stack[depth]);
             p++;
         } else if (*p == ')') {
             long n;
@@ -91,18 +138,54 @@ molq_status molq_formula_molar_mass(const char *formula, double *out,
             n = read_count(&p);
             if (n <= 0)
                 goto bad;
-            stack[depth - 1] += stack[depth] * (double)n;
+            for (i = 0; i < NWEIGHTS; i++) {
+                stack[depth - 1][i] += stack[depth][i] * n;
+                if (stack[depth - 1][i] > MAX_ATOMS)
+                    goto bad;
+            }
             depth--;
+        } else if ((*p == '+' || *p == '-') && p != formula) {
+            if (!read_charge(p, &charge))
+                goto bad;
+            break;
         } else {
             goto bad;
         }
     }
-    if (depth != 0 || stack[0] <= 0.0)
+    if (depth != 0 || norder == 0)
         goto bad;
-    *out = stack[0] * MOLQ_M_U * MOLQ_N_AVOGADRO;
+    if (norder > MOLQ_MAX_ELEMENTS) {
+        molq_errf(err, errlen, "formula '%s' has %zu elements, more than %d",
+                  formula, norder, MOLQ_MAX_ELEMENTS);
+        return MOLQ_EVALUE;
+    }
+    memset(out, 0, sizeof *out);
+    for (i = 0; i < norder; i++) {
+        out->el[i].symbol = weights[order[i]].sym;
+        out->el[i].count = stack[0][order[i]];
+        mass += weights[order[i]].ar * (double)stack[0][order[i]];
+    }
+    out->n = norder;
+    out->charge = charge;
+    /* an ion's mass: its atoms' less (or plus) the electrons' */
+    out->molar_mass = mass * MOLQ_M_U * MOLQ_N_AVOGADRO -
+                      (double)charge * MOLQ_M_E_MOLAR;
+    if (!(out->molar_mass > 0.0))
+        goto bad;
     return MOLQ_OK;
 bad:
     molq_errf(err, errlen, "cannot read formula '%s' (write element symbols "
-              "with counts, e.g. CO2, CH3OH, Ca(OH)2)", formula);
+              "with counts and an optional trailing charge, e.g. CO2, "
+              "Ca(OH)2, N2+, O-, e-)", formula);
     return MOLQ_EVALUE;
+}
+
+molq_status molq_formula_molar_mass(const char *formula, double *out,
+                                    char *err, size_t errlen)
+{
+    molq_composition c;
+    molq_status st = molq_formula_parse(formula, &c, err, errlen);
+    if (st == MOLQ_OK)
+        *out = c.molar_mass;
+    return st;
 }

@@ -8,6 +8,7 @@
  * cm^-1, "degeneracy": integer, default 1}), electronic_levels (array of
  * {"energy": cm^-1, "degeneracy": integer, default 1}),
  * formation_enthalpy_298 (number, J/mol), source (string),
+ * validated_range ([T_low, T_high], K),
  * model ("rrho" | "levels"), dissociation_energy (number, cm^-1),
  * spin_isomers ("equilibrium" | "frozen"), odd_fraction (number),
  * diatomic_states (array of STATE).
@@ -94,7 +95,7 @@ static molq_status read_pairs(molq_json_ctx *c, molq_spec *s, json_t *arr,
 static const char *const entry_keys[] = {
     "name", "formula", "molar_mass", "structure", "symmetry_number",
     "rotational_constants", "rotor", "vibrations", "electronic_levels",
-    "formation_enthalpy_298", "source", NULL};
+    "formation_enthalpy_298", "source", "validated_range", NULL};
 
 static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
 {
@@ -199,6 +200,18 @@ static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
         if ((st = molq_json_number(c, v, "formation_enthalpy_298", &x)) != MOLQ_OK)
             return st;
         molq_spec_set_formation_enthalpy(s, x);
+    }
+    if ((v = json_object_get(e, "validated_range")) != NULL) {
+        double r[2];
+        if (!json_is_array(v) || json_array_size(v) != 2)
+            return molq_json_key_error(c, MOLQ_ETYPE, "validated_range",
+                                       "expected [T_low, T_high] in K");
+        if ((st = molq_json_number(c, json_array_get(v, 0), "validated_range",
+                                   &r[0])) != MOLQ_OK ||
+            (st = molq_json_number(c, json_array_get(v, 1), "validated_range",
+                                   &r[1])) != MOLQ_OK)
+            return st;
+        molq_spec_set_validated_range(s, r[0], r[1]);
     }
     return molq_json_read_levels(c, e, s);
 }

@@ -275,6 +275,17 @@ molq_status molq_spec_set_rotor(molq_spec *s, molq_rotor rotor)
     return MOLQ_OK;
 }
 
+molq_status molq_spec_set_validated_range(molq_spec *s, double t_lo,
+                                          double t_hi)
+{
+    if (s == NULL)
+        return MOLQ_EARG;
+    s->range_lo = t_lo;
+    s->range_hi = t_hi;
+    s->has_range = 1;
+    return MOLQ_OK;
+}
+
 molq_status molq_spec_set_formation_enthalpy(molq_spec *s, double j_per_mol)
 {
     if (s == NULL)

@@ -97,6 +97,8 @@ struct molq_spec_s {
     double nuclear_spin; /* of the nuclei the spin group exchanges */
     int spin_frozen;     /* 1: frozen even/odd mixture, 0: equilibrium */
     double odd_fraction; /* frozen: mole fraction in odd-J levels */
+    double range_lo, range_hi; /* validated range, K */
+    int has_range;
 };
 
 /* The states as the level generator takes them (default weights 1/sigma);
@@ -128,6 +130,27 @@ molq_model molq_spec_default_model(const molq_spec *s);
  * that disagrees with the formula) are appended to `warn` (may be NULL). */
 molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
                                molq_warnlist *warn, char *err, size_t errlen);
+
+/* A formula's composition: distinct elements in order of first appearance
+ * (symbols are static strings), the charge in elementary charges and the
+ * molar mass in kg/mol (IUPAC standard atomic weights; an ion's mass is its
+ * atoms' less charge x the electron's). */
+#define MOLQ_MAX_ELEMENTS 16
+typedef struct molq_composition {
+    size_t n;
+    struct {
+        const char *symbol;
+        long count;
+    } el[MOLQ_MAX_ELEMENTS];
+    int charge;
+    double molar_mass;
+} molq_composition;
+
+/* Parse "CO2", "Ca(OH)2", "N2+", "O-", "H3O+", "Ca+2" (trailing '+'/'-'
+ * repeated, or one sign with a count) or "e-" (the electron: no elements,
+ * charge -1).  MOLQ_EVALUE with a message otherwise. */
+molq_status molq_formula_parse(const char *formula, molq_composition *out,
+                               char *err, size_t errlen);
 
 /* Molar mass in kg/mol from a formula such as "CO2", "CH3OH", "Ca(OH)2",
  * using IUPAC standard atomic weights.  MOLQ_EVALUE with a message on an

@@ -338,7 +338,7 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
             return MOLQ_ENOMEM;
         }
     } else if (s->formula != NULL) {
-        char sub[200];
+        char sub[300];
         if (molq_formula_molar_mass(s->formula, molar_mass, sub, sizeof sub)
             != MOLQ_OK)
             FAIL(MOLQ_EVALUE, "species '%s': field 'formula': %s", nm, sub);
@@ -346,6 +346,26 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
         FAIL(MOLQ_EKEY, "species '%s': field 'molar_mass': missing, and no "
              "'formula' to compute it from", nm);
     }
+
+    if (s->has_molar_mass && s->formula != NULL && warn != NULL) {
+        molq_composition comp;
+        char sub[300];
+        if (molq_formula_parse(s->formula, &comp, sub, sizeof sub) !=
+                MOLQ_OK &&
+            molq_warn(warn, "species '%s': field 'formula': %s; the species "
+                      "has no element composition or charge", nm, sub) !=
+                MOLQ_OK) {
+            molq_errf(err, errlen, "species '%s': out of memory", nm);
+            return MOLQ_ENOMEM;
+        }
+    }
+    if (s->has_range &&
+        !(isfinite(s->range_lo) && isfinite(s->range_hi) &&
+          s->range_lo > 0.0 && s->range_lo < s->range_hi &&
+          s->range_hi <= 1e6))
+        FAIL(MOLQ_EVALUE, "species '%s': field 'validated_range': must be "
+             "[T_low, T_high] in K with 0 < T_low < T_high <= 1e6 (got [%g, "
+             "%g])", nm, s->range_lo, s->range_hi);
 
     if (s->structure < MOLQ_ATOM || s->structure > MOLQ_NONLINEAR)
         FAIL(MOLQ_EVALUE, "species '%s': field 'structure': must be atom, "

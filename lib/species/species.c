@@ -2,6 +2,7 @@
 
 #include <math.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include "core/constants.h"
 #include "core/errbuf.h"
@@ -236,6 +237,12 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
         return MOLQ_ENOMEM;
     }
     sp->molar_mass = molar_mass;
+    if (spec->formula == NULL ||
+        molq_formula_parse(spec->formula, &sp->comp, NULL, 0) != MOLQ_OK)
+        memset(&sp->comp, 0, sizeof sp->comp);
+    sp->has_range = spec->has_range;
+    sp->range_lo = spec->range_lo;
+    sp->range_hi = spec->range_hi;
     sp->structure = (molq_structure)spec->structure;
     sp->rotor = spec->structure == MOLQ_ATOM ? MOLQ_ROTOR_CORRECTED
                                              : (molq_rotor)spec->rotor;

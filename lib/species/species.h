@@ -27,6 +27,9 @@ struct molq_species_s {
     molq_mode modes[MOLQ_MAX_MODES];
     double *arrays; /* one block: vib theta, vib g, el theta, el g */
     molq_warnlist warnings; /* plausibility findings, frozen at creation */
+    molq_composition comp; /* from the formula; comp.n 0 when unknown */
+    int has_range;
+    double range_lo, range_hi; /* validated range, K */
 };
 
 /* Build a species with `model` from a spec that molq_spec_validate

@@ -19,7 +19,7 @@
  *                      a quarter of them (at least one) are builders
  *   MOLQ_TEST_ROUNDS   passes of each evaluator over the work list
  *                      (default 3)
- *   MOLQ_SPECIES_JSON  path of data/species.json (set by meson); builders
+ *   MOLQ_SPECIES_JSON  path of data/species (set by meson); builders
  *                      read it with molq_db_read_file when it is given
  *
  * Run alone under ThreadSanitizer with tests/hardening/tsan.sh. */

@@ -30,7 +30,7 @@ TSAN_OPTIONS="halt_on_error=1 exitcode=66 second_deadlock_stack=1 ${TSAN_OPTIONS
     MOLQ_TEST_THREADS=${MOLQ_TEST_THREADS:-16} \
     MOLQ_TEST_ROUNDS=${MOLQ_TEST_ROUNDS:-1} \
     MOLQ_TEST_DATA="$PWD/tests/data" \
-    MOLQ_SPECIES_JSON="$PWD/data/species.json" \
+    MOLQ_SPECIES_JSON="$dir/lib/builtin_species.json" \
     "$dir/tests/hardening/test_hardening_threads" >"$log" 2>&1 || status=$?
 cat "$log"
 if grep -q "WARNING: ThreadSanitizer\|ERROR: ThreadSanitizer\|FATAL: ThreadSanitizer" "$log"; then

@@ -571,7 +571,8 @@ class Species(_Immutable):
                        diatomic_states=None, dissociation_energy=None,
                        spin_isomers="equilibrium", odd_fraction=None,
                        anharmonicity=None, torsions=None,
-                       rotational_weights=None, rotational_spin=None):
+                       rotational_weights=None, rotational_spin=None,
+                       validated_range=None):
         """Build a species from molecular constants.
 
         The arguments are the keys of the species file (README, "Species
@@ -649,6 +650,9 @@ class Species(_Immutable):
                 rotational_weights: ``{"group": "C3v" or "Td",
                 "nuclear_spin": I}`` or a ``(group, I)`` pair (NH3: C3v,
                 CH4: Td; I = 0.5 for protons).
+            validated_range: ``(T_low, T_high)`` in K over which the data
+                were checked against published tables (informational; see
+                :attr:`validated_range`).
 
         Raises:
             MolqError: the library rejected a value; the message names the
@@ -667,7 +671,8 @@ class Species(_Immutable):
             spin_isomers=spin_isomers, odd_fraction=odd_fraction,
             anharmonicity=anharmonicity, torsions=torsions,
             rotational_weights=rotational_weights,
-            rotational_spin=rotational_spin)
+            rotational_spin=rotational_spin,
+            validated_range=validated_range)
         return cls.from_dict(entry)
 
     # -- lifetime, copying, pickling -----------------------------------------
@@ -717,6 +722,35 @@ class Species(_Immutable):
     def source(self):
         """Free-text source of the data ("" when none)."""
         return _decode(_L.molq_species_source(self._ptr))
+
+    @property
+    def charge(self):
+        """Charge in elementary charges, from the formula (+1 for "N2+",
+        -1 for "e-"; 0 when neutral or without a readable formula)."""
+        return _L.molq_species_charge(self._ptr)
+
+    @property
+    def elements(self):
+        """Element composition from the formula, a dict {symbol: atoms} in
+        the formula's order ({"C": 1, "O": 2} for CO2; {} for the electron
+        or without a readable formula)."""
+        out = {}
+        sym, n = ctypes.c_char_p(), ctypes.c_long()
+        for i in range(_L.molq_species_element_count(self._ptr)):
+            _L.molq_species_element(self._ptr, i, ctypes.byref(sym),
+                                    ctypes.byref(n))
+            out[_decode(sym.value)] = n.value
+        return out
+
+    @property
+    def validated_range(self):
+        """``(T_low, T_high)`` in K over which the data were checked against
+        published tables, or None when the data state none.  Evaluation is
+        not limited to it (molq.h, molq_species_validated_range)."""
+        lo, hi = ctypes.c_double(), ctypes.c_double()
+        st = _L.molq_species_validated_range(self._ptr, ctypes.byref(lo),
+                                             ctypes.byref(hi))
+        return (lo.value, hi.value) if st == 0 else None
 
     @property
     def molar_mass(self):
@@ -1295,7 +1329,7 @@ def _constants_entry(name, *, structure, molar_mass, symmetry_number,
                      formation_enthalpy, formula, rotor, source, model,
                      diatomic_states, dissociation_energy, spin_isomers,
                      odd_fraction, anharmonicity, torsions,
-                     rotational_weights, rotational_spin):
+                     rotational_weights, rotational_spin, validated_range):
     """The species-file entry (a dict) of Species.from_constants."""
     c = _Entry(name)
     entry = {"name": c.text(name, "name")}
@@ -1347,6 +1381,10 @@ def _constants_entry(name, *, structure, molar_mass, symmetry_number,
                                                 "formation_enthalpy")
     if source is not None:
         entry["source"] = c.text(source, "source")
+    if validated_range is not None:
+        entry["validated_range"] = [
+            c.num(x, "validated_range") for x in
+            c.seq(validated_range, "validated_range", "a (T_low, T_high) pair")]
     if model is not None:
         entry["model"] = model
     if dissociation_energy is not None:
@@ -1612,6 +1650,20 @@ class Database(_Immutable):
         if sp is None:
             raise _no_species(name, self.names())
         return sp
+
+    def by_formula(self, formula, default=None):
+        """The first species (in file order) whose formula is exactly
+        `formula` (as written in the data, e.g. "CO2", "N2+"), or `default`
+        when none has it."""
+        out = ctypes.c_void_p()
+        status = _L.molq_db_find_formula(self._ptr,
+                                         _encode_name(formula, "formula"),
+                                         ctypes.byref(out))
+        if status == ENOTFOUND:
+            return default
+        if status != 0:
+            _fail(status, None, "formula %r" % (formula,))
+        return self._species(out.value)
 
     def get(self, name, default=None):
         """``db[name]``, or `default` when there is no such species."""

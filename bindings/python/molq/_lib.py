@@ -146,6 +146,13 @@ _PROTOTYPES = [
     ("molq_db_count", _size, [_ptr]),
     ("molq_db_species", _ptr, [_ptr, _size]),
     ("molq_db_find", _int, [_ptr, _str, _c.POINTER(_ptr)]),
+    ("molq_db_find_formula", _int, [_ptr, _str, _c.POINTER(_ptr)]),
+    ("molq_species_charge", _int, [_ptr]),
+    ("molq_species_element_count", _size, [_ptr]),
+    ("molq_species_element", _int, [_ptr, _size, _c.POINTER(_c.c_char_p),
+                                    _c.POINTER(_c.c_long)]),
+    ("molq_species_validated_range", _int, [_ptr, _c.POINTER(_c.c_double),
+                                            _c.POINTER(_c.c_double)]),
 ]
 
 for _name, _res, _args in _PROTOTYPES:

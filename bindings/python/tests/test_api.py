@@ -10,7 +10,7 @@ import unittest
 
 import molq
 
-# Species file values (data/species.json; JANAF 1998 molar masses).
+# Species file values (data/species/*.json; JANAF 1998 molar masses).
 FILE_MOLAR_MASS = {"Ar": 39.948, "N2": 28.0134, "CO2": 44.0095,
                    "H2O": 18.0153}
 

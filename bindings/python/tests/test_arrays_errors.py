@@ -20,9 +20,9 @@ except ImportError:   # the binding needs only the standard library
 
 TEMPS = [250.0, 298.15, 800.0, 2400.0]
 PRESSURES = [1e4, 1e5, 2e6, 5e6]
-SPECIES_JSON = os.path.join(os.path.dirname(os.path.abspath(__file__)),
-                            os.pardir, os.pardir, os.pardir, "data",
-                            "species.json")
+SPECIES_DIR = os.path.join(os.path.dirname(os.path.abspath(__file__)),
+                           os.pardir, os.pardir, os.pardir, "data",
+                           "species")
 
 
 def bits(x):
@@ -145,7 +145,7 @@ class NumpyPressures(unittest.TestCase):
 
 class FromConstantsVocabulary(unittest.TestCase):
     """Every starter species rebuilt by from_constants from its own entry of
-    data/species.json equals the built-in one to the last bit; the entries
+    data/species/*.json equals the built-in one to the last bit; the entries
     use torsions, anharmonicity, rotational_weights, rotational_spin,
     harmonic wavenumbers and diatomic states."""
 
@@ -153,8 +153,12 @@ class FromConstantsVocabulary(unittest.TestCase):
 
     @classmethod
     def setUpClass(cls):
-        with open(SPECIES_JSON, encoding="utf-8") as f:
-            cls.entries = json.load(f)["species"]
+        cls.entries = []
+        for name in sorted(os.listdir(SPECIES_DIR)):
+            if name.endswith(".json"):
+                with open(os.path.join(SPECIES_DIR, name),
+                          encoding="utf-8") as f:
+                    cls.entries += json.load(f)["species"]
         cls.db = molq.Database.builtin()
 
     def kwargs(self, entry):
