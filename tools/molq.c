@@ -9,7 +9,12 @@
  *   molq spin SPECIES...  [--data FILE] [--T ...] [--format ...]
  *                         [--per-mass] [--model NAME]
  *   molq list [--data FILE] [--format ...]
- *   molq help | --help | --version
+ *   molq help [COMMAND] | COMMAND --help | --help | --version
+ *
+ * With --model or --compare, csv output names the model asked for and the
+ * model used (an atom asked for a model it has no data for keeps its own,
+ * with a note); csv and json numbers are the shortest decimals that read
+ * back as the same double.
  *
  * Exit status: 0 success, 1 data or evaluation error, 2 usage error. */
 #include <errno.h>
@@ -621,6 +626,10 @@ static int load_sets(const char *path, sets *s)
             show_file_line(path, line, col);
         return EXIT_DATA;
     }
+    /* WARNINGS: the library's non-fatal warnings of s->user (and of the
+     * species used) go to stderr here as "molq: warning: ..." once the
+     * library has molq_db_warning_count / molq_db_warning (wired up by the
+     * coordinator when merging). */
     return 0;
 }
 
@@ -1600,7 +1609,8 @@ int main(int argc, char **argv)
                         "after '%s')", argv[3], argv[2]);
             return EXIT_USAGE;
         }
-        if (strcmp(argv[1], "help") == 0 && argc > 2) {
+        if (strcmp(argv[1], "help") == 0 && argc > 2 &&
+            strcmp(argv[2], "help") != 0) {
             for (cmd = 0; cmd < N_CMDS; cmd++)
                 if (strcmp(argv[2], cmd_name[cmd]) == 0)
                     break;
