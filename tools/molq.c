@@ -626,10 +626,26 @@ static int load_sets(const char *path, sets *s)
             show_file_line(path, line, col);
         return EXIT_DATA;
     }
-    /* WARNINGS: the library's non-fatal warnings of s->user (and of the
-     * species used) go to stderr here as "molq: warning: ..." once the
-     * library has molq_db_warning_count / molq_db_warning (wired up by the
-     * coordinator when merging). */
+    /* The file loaded: its warnings (the file's, then each species') and
+     * the built-in species it overrides (names looked up in the file
+     * first) go to stderr; results still follow. */
+    {
+        size_t i, n = molq_db_warning_count(s->user);
+        for (i = 0; i < n; i++) {
+            const char *w = molq_db_warning(s->user, i);
+            if (strncmp(w, "species file: ", 14) == 0)
+                w += 14; /* the path names the file */
+            fprintf(stderr, "molq: warning: %s: %s\n", path, w);
+        }
+        n = molq_db_count(s->user);
+        for (i = 0; i < n; i++) {
+            const char *name = molq_species_name(molq_db_species(s->user, i));
+            const molq_species *b;
+            if (molq_db_find(s->builtin, name, &b) == MOLQ_OK)
+                fprintf(stderr, "molq: note: species '%s' from %s overrides "
+                        "the built-in one\n", name, path);
+        }
+    }
     return 0;
 }
 

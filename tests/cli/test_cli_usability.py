@@ -21,6 +21,7 @@ import io
 import json
 import os
 import re
+import tempfile
 import subprocess
 import unittest
 from pathlib import Path
@@ -302,6 +303,39 @@ class FileNamedOnce(unittest.TestCase):
                 first = err.splitlines()[0]
                 self.assertEqual(first.count(str(f)), 1, first)
                 self.assertEqual(first.count("species file"), 1, first)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class WarningsAndOverrides(unittest.TestCase):
+    """A file that loads with warnings gets them on stderr, once each and
+    naming the file; a file species that shadows a built-in one is noted;
+    the results still follow on stdout."""
+
+    def test_warnings_on_stderr(self):
+        # N2 with 30 g/mol against its formula's 28.014 (standard atomic
+        # weight of N 14.007, IUPAC, from memory) and no schema_version
+        text = ('{"species": [{"name": "N2", "formula": "N2", "molar_mass": '
+                '30, "structure": "linear", "rotational_constants": [2.0], '
+                '"vibrations": [{"wavenumber": 2300}]}]}')
+        with tempfile.TemporaryDirectory() as d:
+            path = os.path.join(d, "mine.json")
+            with open(path, "w") as f:
+                f.write(text)
+            out, err = run_ok(self, "table", "N2", "--data", path, "--T",
+                              "300", "--format", "csv")
+        self.assertTrue(out.startswith("species,T,"), out)
+        lines = err.splitlines()
+        self.assertIn("molq: warning: %s: field 'schema_version': missing"
+                      % path, err)
+        self.assertIn("species 'N2': field 'molar_mass': 30 g/mol", err)
+        self.assertIn("molq: note: species 'N2' from %s overrides the "
+                      "built-in one" % path, err)
+        self.assertEqual(len(lines), 3, err)
+        self.assertNotIn("species file: field", err)
+
+    def test_clean_file_is_quiet(self):
+        _, err = run_ok(self, "list", "--data", DATA / "demo_species.json")
+        self.assertNotIn("warning", err)
 
 
 if __name__ == "__main__":
