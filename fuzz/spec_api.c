@@ -77,7 +77,9 @@ static int model_valid(const model *m)
         return 0;
     if (m->rotor != MOLQ_ROTOR_CORRECTED && m->rotor != MOLQ_ROTOR_CLASSICAL)
         return 0;
-    if (m->sigma < 1 || (m->structure == MOLQ_ATOM && m->sigma != 1))
+    /* molq.h / README: symmetry numbers 1 to 100000 */
+    if (m->sigma < 1 || m->sigma > 100000 ||
+        (m->structure == MOLQ_ATOM && m->sigma != 1))
         return 0;
     if (m->nrot != need_rot[m->structure])
         return 0;
@@ -114,8 +116,8 @@ static void add_vib(molq_spec *s, model *m, double w, int g)
         CHECK(st == MOLQ_OK, "add_vibration #%zu returned %d", m->nvib + 1,
               (int)st);
         m->nvib++;
-        if (!isfinite(w) || !(w > 0.0) || g < 1)
-            m->vib_ok = 0;
+        if (!isfinite(w) || !(w > 0.0) || g < 1 || g > 1000000)
+            m->vib_ok = 0; /* degeneracies 1 to 1000000 (README) */
     } else {
         CHECK(st == MOLQ_ELIMIT, "vibration #%zu returned %d, not ELIMIT",
               m->nvib + 1, (int)st);
@@ -129,7 +131,7 @@ static void add_lev(molq_spec *s, model *m, double e, int g)
         CHECK(st == MOLQ_OK, "add_electronic_level #%zu returned %d",
               m->nlev + 1, (int)st);
         m->nlev++;
-        if (!isfinite(e) || !(e >= 0.0) || g < 1)
+        if (!isfinite(e) || !(e >= 0.0) || g < 1 || g > 1000000)
             m->lev_ok = 0;
         if (e == 0.0)
             m->have_ground = 1;

@@ -58,10 +58,12 @@ test)
     abi/check.sh build
     # Sanitisers: the suites that load the library into an uninstrumented
     # host (Python via ctypes) or run it under valgrind are skipped here;
-    # they run in the plain build above.
+    # they run in the plain build above.  So is the install test: its
+    # second build is a plain one whatever this build is.
     build build-asan -Db_sanitize=address,undefined -Db_lundef=false
     ASAN_OPTIONS=detect_leaks=1 UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
-        meson test -C build-asan --print-errorlogs --no-suite python --no-suite valgrind
+        meson test -C build-asan --print-errorlogs --no-suite python --no-suite valgrind \
+        --no-suite install
     # Threads under ThreadSanitizer (shared handles, concurrent creation).
     tests/hardening/tsan.sh build-tsan
     # Fuzzing: every committed regression input, then a short run per target.

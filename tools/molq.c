@@ -9,7 +9,12 @@
  *   molq spin SPECIES...  [--data FILE] [--T ...] [--format ...]
  *                         [--per-mass] [--model NAME]
  *   molq list [--data FILE] [--format ...]
- *   molq help | --help | --version
+ *   molq help [COMMAND] | COMMAND --help | --help | --version
+ *
+ * With --model or --compare, csv output names the model asked for and the
+ * model used (an atom asked for a model it has no data for keeps its own,
+ * with a note); csv and json numbers are the shortest decimals that read
+ * back as the same double.
  *
  * Exit status: 0 success, 1 data or evaluation error, 2 usage error. */
 #include <errno.h>
@@ -62,7 +67,7 @@ static const char help_head[] =
     "                        [--format text|csv|json] [--per-mass]\n"
     "                        [--model NAME]\n"
     "  molq list [--data FILE] [--format text|csv|json]\n"
-    "  molq help | molq --help | molq --version\n"
+    "  molq help [COMMAND] | molq COMMAND --help | molq --help | molq --version\n"
     "\n"
     "Commands:\n"
     "  table   cp, cv, h, s, g, h_minus_h298, gef and dcp_dT of each SPECIES\n"
@@ -76,7 +81,8 @@ static const char help_head[] =
     "          frozen mixture (the species' own, or else its high-temperature\n"
     "          even/odd ratio, e.g. normal hydrogen) relaxes to spin\n"
     "          equilibrium at T.  Diatomics with the levels model; zero\n"
-    "          (to round-off) when even and odd levels weigh the same.\n"
+    "          (to round-off) when even and odd levels weigh the same; an\n"
+    "          error for a species with no spin-isomer model (e.g. H2O).\n"
     "          Default TEMPS:"
     " 20,30,40,50,77,100,150,200,298.15\n"
     "  list    the species available: name, formula, structure, model,\n"
@@ -100,7 +106,8 @@ static const char help_tail[] =
     "  --format F      text (aligned table, default), csv or json.\n"
     "  --per-mass      (table, spin) per kilogram instead of per mole.\n"
     "  --model NAME    evaluate every SPECIES with model NAME instead of its\n"
-    "                  own (the species data must support it).\n"
+    "                  own (the species data must support it; an atom asked\n"
+    "                  for levels keeps rrho, with a note).\n"
     "  --compare LIST  (table) one row per model for each species and T,\n"
     "                  e.g. --compare rrho,levels.\n"
     "  --              end of options; later words are species names.\n"
@@ -120,13 +127,17 @@ static const char help_tail[] =
     "        (with --compare: species,model,T,cp,...)\n"
     "        modes header: species,T,mode,lnq,u,cv,s\n"
     "        spin header:  species,T,h_frozen_minus_h_eq\n"
-    "        numbers with 12 significant digits.\n"
+    "        (with --model or --compare: species,model,model_used,T,...;\n"
+    "        model is the one asked for, model_used the one evaluated)\n"
     "  json  {\"units\": {...}, \"pressure\": p, \"basis\": ...,\n"
     "         \"species\": [{\"name\": ..., \"model\": ...,\n"
     "                      \"rows\": [{\"T\": ..., ...}]}]}\n"
     "        (with --compare each species has \"models\": [{\"model\": ...,\n"
     "        \"rows\": [...]}] instead of \"model\" and \"rows\");\n"
-    "        numbers with 17 significant digits (exact round trip).\n"
+    "        \"model\" is the model asked for (or the species' own),\n"
+    "        \"model_used\" the one evaluated.\n"
+    "  csv and json numbers are the shortest decimals that read back as the\n"
+    "  same doubles; text rounds to 7 or 8 significant digits.\n"
     "\n"
     "Exit status: 0 success, 1 data or evaluation error, 2 usage error.\n"
     "\n"
@@ -144,6 +155,143 @@ static void print_help(FILE *f)
                 model_table[i].about);
     fputs("  Default: each species' own model (shown by 'molq list').\n", f);
     fputs(help_tail, f);
+    fputs("\nRun 'molq help COMMAND' (or 'molq COMMAND --help') for one "
+          "command's usage,\noptions and an example.\n", f);
+}
+
+/* ------------------------------------------------------------------------ */
+/* Help of one command                                                      */
+/* ------------------------------------------------------------------------ */
+
+/* The short caution of the commands whose numbers feed design work. */
+static const char help_caution[] =
+    "\n"
+    "CAUTION: ideal-gas estimates.  Do not size burners, pressure equipment\n"
+    "or safety systems with them without review under the applicable codes\n"
+    "by a licensed engineer.\n";
+
+static const struct {
+    const char *usage;    /* after "Usage: " */
+    const char *about;    /* what the command prints */
+    const char *temps;    /* default of --T, NULL: no --T */
+    const char *example;  /* comment line(s) and command, indented */
+    int caution;
+} cmd_help[N_CMDS] = {
+    /* CMD_TABLE */
+    {"molq table SPECIES... [--data FILE] [--T TEMPS] [--p PASCAL]\n"
+     "                  [--format text|csv|json] [--per-mass]\n"
+     "                  [--model NAME | --compare NAME,NAME...]\n",
+     "Ideal-gas properties of each SPECIES at each temperature, by\n"
+     "statistical mechanics with the species' model: cp, cv, s, gef in\n"
+     "J/(mol K); h, g, h_minus_h298 in J/mol; dcp_dT in J/(mol K^2).\n"
+     "h(T) = dfH(298.15 K) + [H(T) - H(298.15 K)] (dfH = 0 when the species\n"
+     "has none); g = h - T s; gef = -(g - h(298.15 K))/T.\n"
+     "With --model or --compare, csv gets the columns model (asked for) and\n"
+     "model_used (evaluated) and json the keys \"model\" and \"model_used\";\n"
+     "an atom asked for a model it has no data for (levels) uses its own and\n"
+     "says so.\n",
+     "298.15,300,400,500,600,800,1000,1500,2000,2500,3000",
+     "  # An invented test rig: the flue gas of a small electric glass kiln,\n"
+     "  # both models side by side from 300 K to 1500 K.\n"
+     "  molq table CO2 H2O N2 --T 300:1500:200 --compare rrho,levels "
+     "--format csv\n",
+     1},
+    /* CMD_MODES */
+    {"molq modes SPECIES... [--data FILE] [--T TEMPS] [--p PASCAL]\n"
+     "                  [--format text|csv|json] [--model NAME]\n",
+     "The contribution of each mode (translation, rotation, vibration,\n"
+     "electronic; rovibronic and torsion for the levels model) to ln q\n"
+     "(dimensionless), u (J/mol, thermal energy above the mode's ground\n"
+     "level), cv and s (J/(mol K)), with the species totals.  With --model,\n"
+     "csv and json also name the model asked for and the model_used.\n",
+     "298.15,300,400,500,600,800,1000,1500,2000,2500,3000",
+     "  # An invented bench test: which modes carry the heat capacity of the\n"
+     "  # ethane in a made-up heated sample cell at 300 K and 900 K?\n"
+     "  molq modes C2H6 --T 300,900\n",
+     0},
+    /* CMD_LIST */
+    {"molq list [--data FILE] [--format text|csv|json]\n",
+     "The species available: name, formula, structure, model, molar mass\n"
+     "(g/mol), whether a formation enthalpy is given, the set it comes from\n"
+     "and its data source.\n",
+     NULL,
+     "  # The species of an invented rig's own file, then the built-in set.\n"
+     "  molq list --data rig_gases.json\n",
+     0},
+    /* CMD_SPIN */
+    {"molq spin SPECIES... [--data FILE] [--T TEMPS] [--format text|csv|json]\n"
+     "                 [--per-mass] [--model NAME]\n",
+     "Ortho-para (even/odd-J) conversion enthalpy h_frozen - h_equilibrium,\n"
+     "J/mol (J/kg with --per-mass): the heat released when the frozen\n"
+     "mixture (the species' own, or its high-temperature even/odd ratio,\n"
+     "e.g. normal hydrogen) relaxes to spin equilibrium at T.  molq has a\n"
+     "spin-isomer model for diatomics described by diatomic_states (model\n"
+     "levels); for any other species (e.g. H2O, CH4, an atom) the command\n"
+     "fails with exit status 1 and says so.  Heteronuclear diatomics give 0.\n"
+     "With --model, csv and json also name the model asked for and the\n"
+     "model_used.\n",
+     "20,30,40,50,77,100,150,200,298.15",
+     "  # An invented bench dewar: heat given off per kilogram when its\n"
+     "  # freshly liquefied hydrogen converts at 20 K, and at 77 K.\n"
+     "  molq spin H2 --T 20,77 --per-mass\n",
+     1},
+};
+
+/* The help line(s) of each option, as in opt_table's order (OPT_*). */
+static const char *const opt_help[] = { /* indexed by OPT_* (below) */
+    "  --data FILE     also read species from FILE (JSON species file);\n"
+    "                  names are looked up there first, then built-in.\n",
+    "  --T TEMPS       temperatures in K: a list 300,400,1000 or an inclusive\n"
+    "                  range START:STOP:STEP such as 300:3000:100.\n",
+    "  --p PASCAL      pressure in Pa (default 100000); s, g, gef and ln q\n"
+    "                  depend on it.\n",
+    "  --format F      text (aligned table, default), csv or json.  csv and\n"
+    "                  json numbers are the shortest decimals that read back\n"
+    "                  as the same doubles.\n",
+    "  --per-mass      per kilogram instead of per mole.\n",
+    "  --model NAME    evaluate every SPECIES with model NAME (rrho or levels)\n"
+    "                  instead of its own.\n",
+    "  --compare LIST  one row per model for each species and T, e.g.\n"
+    "                  --compare rrho,levels.\n",
+};
+
+/* Levenshtein distance of two short words (for "did you mean"). */
+static size_t edit_distance(const char *a, const char *b)
+{
+    size_t la = strlen(a), lb = strlen(b), i, j;
+    size_t row[64], prev, tmp;
+    if (la >= 64 || lb >= 64)
+        return (size_t)-1;
+    for (j = 0; j <= lb; j++)
+        row[j] = j;
+    for (i = 1; i <= la; i++) {
+        prev = row[0];
+        row[0] = i;
+        for (j = 1; j <= lb; j++) {
+            size_t best = prev + (a[i - 1] != b[j - 1]);
+            if (row[j] + 1 < best)
+                best = row[j] + 1;
+            if (row[j - 1] + 1 < best)
+                best = row[j - 1] + 1;
+            tmp = row[j];
+            row[j] = best;
+            prev = tmp;
+        }
+    }
+    return row[lb];
+}
+
+/* The command name nearest to `word`. */
+static const char *nearest_command(const char *word)
+{
+    size_t best = (size_t)-1, d;
+    int c, pick = 0;
+    for (c = 0; c < N_CMDS; c++)
+        if ((d = edit_distance(word, cmd_name[c])) < best) {
+            best = d;
+            pick = c;
+        }
+    return cmd_name[pick];
 }
 
 static const double default_T[] = {298.15, 300,  400,  500,  600, 800,
@@ -198,6 +346,31 @@ static const struct {
     {"--model", 1, FOR_TABLE | FOR_MODES | FOR_SPIN},
     {"--compare", 1, FOR_TABLE},
 };
+/* opt_help has one entry per option. */
+typedef char opt_help_count_check
+    [sizeof opt_help / sizeof opt_help[0] == N_OPTS ? 1 : -1];
+
+static void print_command_help(FILE *f, int cmd)
+{
+    int k;
+    fprintf(f, "Usage: %s\n%s\nOptions:\n", cmd_help[cmd].usage,
+            cmd_help[cmd].about);
+    for (k = 0; k < N_OPTS; k++) {
+        if (!(opt_table[k].commands & (1u << cmd)))
+            continue;
+        fputs(opt_help[k], f);
+        if (k == OPT_T && cmd_help[cmd].temps != NULL) 
+            fprintf(f, "                  Default: %s\n", cmd_help[cmd].temps);
+    }
+    fputs("  --help, -h      this help.\n"
+          "  Options may also be written --name=value; -- ends the options.\n",
+          f);
+    fprintf(f, "\nExample:\n%s", cmd_help[cmd].example);
+    if (cmd_help[cmd].caution)
+        fputs(help_caution, f);
+    fputs("\nExit status: 0 success, 1 data or evaluation error, 2 usage "
+          "error.\n", f);
+}
 
 typedef struct options {
     int cmd;
@@ -433,13 +606,45 @@ static int load_sets(const char *path, sets *s)
     st = molq_db_read_file(path, &s->user, err, sizeof err);
     if (st != MOLQ_OK) {
         long line, col;
-        const char *at = strstr(err, "line ");
-        fprintf(stderr, "molq: species file '%s': %s (%s)\n", path, err,
-                molq_status_string(st));
+        const char *at = strstr(err, "line "), *msg = err;
+        size_t plen = strlen(path);
+        /* Name the file once: the library names it in its I/O messages
+         * ("PATH: cannot open ...") and says "species file: line ..." for
+         * syntax errors. */
+        if (strncmp(msg, path, plen) == 0 && msg[plen] == ':' &&
+            msg[plen + 1] == ' ')
+            msg += plen + 2;
+        else if (strncmp(msg, "species file: ", 14) == 0)
+            msg += 14;
+        if (strstr(msg, path) != NULL)
+            fprintf(stderr, "molq: %s (%s)\n", msg, molq_status_string(st));
+        else
+            fprintf(stderr, "molq: species file '%s': %s (%s)\n", path, msg,
+                    molq_status_string(st));
         if (st == MOLQ_ESYNTAX && at != NULL &&
             sscanf(at, "line %ld, column %ld", &line, &col) == 2)
             show_file_line(path, line, col);
         return EXIT_DATA;
+    }
+    /* The file loaded: its warnings (the file's, then each species') and
+     * the built-in species it overrides (names looked up in the file
+     * first) go to stderr; results still follow. */
+    {
+        size_t i, n = molq_db_warning_count(s->user);
+        for (i = 0; i < n; i++) {
+            const char *w = molq_db_warning(s->user, i);
+            if (strncmp(w, "species file: ", 14) == 0)
+                w += 14; /* the path names the file */
+            fprintf(stderr, "molq: warning: %s: %s\n", path, w);
+        }
+        n = molq_db_count(s->user);
+        for (i = 0; i < n; i++) {
+            const char *name = molq_species_name(molq_db_species(s->user, i));
+            const molq_species *b;
+            if (molq_db_find(s->builtin, name, &b) == MOLQ_OK)
+                fprintf(stderr, "molq: note: species '%s' from %s overrides "
+                        "the built-in one\n", name, path);
+        }
     }
     return 0;
 }
@@ -544,16 +749,106 @@ static void jappend(jctx *j, json_t *arr, json_t *v)
     }
 }
 
-/* Dump `root` to stdout.  @return 0 or EXIT_DATA. */
+/* The shortest of %.15g, %.16g and %.17g of `v` that strtod reads back as
+ * the very same double (%.17g always does).  `buf` needs 32 bytes. */
+static const char *fmt_shortest(double v, char *buf, size_t len)
+{
+    int prec;
+    for (prec = 15; prec <= 17; prec++) {
+        snprintf(buf, len, "%.*g", prec, v);
+        if (strtod(buf, NULL) == v)
+            break;
+    }
+    return buf;
+}
+
+/* Print `v` as a csv number (shortest round trip). */
+static void csv_number(double v)
+{
+    char buf[32];
+    fputs(fmt_shortest(v, buf, sizeof buf), stdout);
+}
+
+/* Print `v` as a JSON real: shortest round trip, with ".0" added to an
+ * integral value so that it still reads as a real, as jansson writes it. */
+static void json_number(FILE *f, double v)
+{
+    char buf[40];
+    fmt_shortest(v, buf, sizeof buf - 2);
+    if (strpbrk(buf, ".eEn") == NULL) /* no fraction, exponent, inf/nan */
+        strcat(buf, ".0");
+    fputs(buf, f);
+}
+
+/* Write `v` to `f` as jansson's JSON_INDENT(2) would, except that reals
+ * are printed by json_number.  Everything but objects, arrays and reals
+ * is encoded by jansson.  @return 0 or -1 (out of memory). */
+static int json_emit(FILE *f, json_t *v, int depth)
+{
+    size_t i, n;
+    const char *key;
+    json_t *x;
+    char *text;
+    int first = 1;
+    if (json_is_real(v)) {
+        json_number(f, json_real_value(v));
+        return 0;
+    }
+    if (json_is_array(v)) {
+        if ((n = json_array_size(v)) == 0) {
+            fputs("[]", f);
+            return 0;
+        }
+        fputs("[\n", f);
+        for (i = 0; i < n; i++) {
+            fprintf(f, "%*s", 2 * (depth + 1), "");
+            if (json_emit(f, json_array_get(v, i), depth + 1) != 0)
+                return -1;
+            fputs(i + 1 < n ? ",\n" : "\n", f);
+        }
+        fprintf(f, "%*s]", 2 * depth, "");
+        return 0;
+    }
+    if (json_is_object(v)) {
+        if (json_object_size(v) == 0) {
+            fputs("{}", f);
+            return 0;
+        }
+        fputs("{\n", f);
+        json_object_foreach(v, key, x) { /* insertion order (jansson 2.8+) */
+            json_t *k = json_string(key);
+            if (k == NULL)
+                return -1;
+            text = json_dumps(k, JSON_ENCODE_ANY);
+            json_decref(k);
+            if (text == NULL)
+                return -1;
+            fprintf(f, "%s%*s%s: ", first ? "" : ",\n", 2 * (depth + 1), "",
+                    text);
+            free(text);
+            first = 0;
+            if (json_emit(f, x, depth + 1) != 0)
+                return -1;
+        }
+        fprintf(f, "\n%*s}", 2 * depth, "");
+        return 0;
+    }
+    if ((text = json_dumps(v, JSON_ENCODE_ANY)) == NULL)
+        return -1;
+    fputs(text, f);
+    free(text);
+    return 0;
+}
+
+/* Write `root` to stdout and free it.  @return 0 or EXIT_DATA. */
 static int json_finish(jctx *j, json_t *root)
 {
     int rc = 0;
     if (j->failed || root == NULL) {
         fputs("molq: out of memory while building JSON output\n", stderr);
         rc = EXIT_DATA;
-    } else if (json_dumpf(root, stdout, JSON_INDENT(2) | JSON_PRESERVE_ORDER |
-                                            JSON_REAL_PRECISION(17)) != 0) {
-        fputs("molq: cannot write JSON output\n", stderr);
+    } else if (json_emit(stdout, root, 0) != 0) {
+        fputs("molq: out of memory while writing JSON output\n", stderr);
         rc = EXIT_DATA;
     } else {
         putchar('\n');
@@ -604,26 +899,73 @@ static molq_status table_row(const molq_species *sp, double T, double p,
     return MOLQ_OK;
 }
 
+/* The model a species is evaluated with, and the one asked for (`asked`,
+ * NULL: the species' own). */
+static const char *used_name(const molq_species *sp)
+{
+    return model_name(molq_species_model(sp));
+}
+
+static const char *asked_name(const molq_species *sp, const char *asked)
+{
+    return asked != NULL ? asked : used_name(sp);
+}
+
+/* An atom asked for a model it has no data for keeps its own (main). */
+static int fell_back(const molq_species *sp, const char *asked)
+{
+    return asked != NULL && strcmp(asked, used_name(sp)) != 0;
+}
+
+/* csv output names the models when one was asked for. */
+static int show_models(const options *o)
+{
+    return o->model >= 0 || o->ncompare > 0;
+}
+
+/* ",model,model_used" of a csv row when show_models. */
+static void csv_models(const molq_species *sp, const char *asked,
+                       const options *o)
+{
+    if (show_models(o))
+        printf(",%s,%s", asked_name(sp, asked), used_name(sp));
+}
+
+/* "model" (asked for, or the species' own) and "model_used" in json. */
+static void json_models(jctx *j, json_t *holder, const molq_species *sp,
+                        const char *asked)
+{
+    jset(j, holder, "model", json_string(asked_name(sp, asked)));
+    jset(j, holder, "model_used", json_string(used_name(sp)));
+}
+
 #define TW 14 /* text column width */
 
-/* Title line of a species in text output; `show_model`: name its model. */
-static void text_species_title(const molq_species *sp, int show_model)
+/* Title line of a species in text output; `show_model`: name its model
+ * (and the one asked for, `asked`, when the species could not use it). */
+static void text_species_title(const molq_species *sp, int show_model,
+                               const char *asked)
 {
     const char *f = molq_species_formula(sp);
     printf("%s  (%s%s%s%.10g g/mol, ", molq_species_name(sp),
            f[0] ? "formula " : "", f, f[0] ? ", " : "",
            molq_species_molar_mass(sp) * 1e3);
-    if (show_model)
-        printf("model %s, ", model_name(molq_species_model(sp)));
+    if (show_model && fell_back(sp, asked))
+        printf("model %s: %s asked for, but %s has no %s model, ",
+               used_name(sp), asked, molq_species_name(sp), asked);
+    else if (show_model)
+        printf("model %s, ", used_name(sp));
     printf("%s)\n", molq_species_has_formation_enthalpy(sp)
                         ? "h includes the formation enthalpy at 298.15 K"
                         : "no formation enthalpy: h = h(T) - h(298.15 K)");
 }
 
 /* `molq table`: sp holds nm variants (models) of each of nsp species,
- * sp[i * nm + k]; compare != 0 prints a model column (--compare). */
-static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
-                     size_t nm, int compare)
+ * sp[i * nm + k], asked[i * nm + k] the model asked for (NULL: own);
+ * compare != 0 prints a model column (--compare). */
+static int cmd_table(const options *o, const molq_species **sp,
+                     const char *const *asked, size_t nsp, size_t nm,
+                     int compare)
 {
     double v[N_TABLE];
     size_t i, t, k, m;
@@ -677,8 +1019,7 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
                     holder = jcheck(&j, json_object());
                     jappend(&j, models, holder);
                 }
-                jset(&j, holder, "model",
-                     json_string(model_name(molq_species_model(x))));
+                json_models(&j, holder, x, asked[i * nm + m]);
                 rows = jcheck(&j, json_array());
                 jset(&j, holder, "rows", rows);
                 for (t = 0; t < o->nT && !j.failed; t++) {
@@ -702,7 +1043,8 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
     }
 
     if (o->format == FMT_CSV) {
-        fputs(compare ? "species,model,T" : "species,T", stdout);
+        fputs(show_models(o) ? "species,model,model_used,T" : "species,T",
+              stdout);
         for (k = 0; k < N_TABLE; k++)
             printf(",%s", molq_property_name(table_props[k]));
         putchar('\n');
@@ -713,7 +1055,7 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
     for (i = 0; i < nsp; i++) {
         if (o->format == FMT_TEXT) {
             putchar('\n');
-            text_species_title(sp[i * nm], !compare);
+            text_species_title(sp[i * nm], !compare, asked[i * nm]);
             printf("%*s", TW, "T");
             if (compare)
                 printf("%*s", TW, "model");
@@ -731,7 +1073,10 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
         for (t = 0; t < o->nT; t++) {
             for (m = 0; m < nm; m++) {
                 const molq_species *x = sp[i * nm + m];
-                const char *mname = model_name(molq_species_model(x));
+                const char *xa = asked[i * nm + m];
+                char mname[64];
+                snprintf(mname, sizeof mname, "%s%s", asked_name(x, xa),
+                         fell_back(x, xa) ? "*" : "");
                 if ((st = table_row(x, o->T[t], o->p, o->per_mass, v)) !=
                     MOLQ_OK) {
                     fflush(stdout);
@@ -740,11 +1085,13 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
                 }
                 if (o->format == FMT_CSV) {
                     csv_field(molq_species_name(x));
-                    if (compare)
-                        printf(",%s", mname);
-                    printf(",%.12g", o->T[t]);
-                    for (k = 0; k < N_TABLE; k++)
-                        printf(",%.12g", v[k]);
+                    csv_models(x, xa, o);
+                    putchar(',');
+                    csv_number(o->T[t]);
+                    for (k = 0; k < N_TABLE; k++) {
+                        putchar(',');
+                        csv_number(v[k]);
+                    }
                 } else {
                     printf("%*.8g", TW, o->T[t]);
                     if (compare)
@@ -758,6 +1105,13 @@ static int cmd_table(const options *o, const molq_species **sp, size_t nsp,
             if (compare && o->format == FMT_TEXT && t + 1 < o->nT)
                 putchar('\n');
         }
+        if (compare && o->format == FMT_TEXT)
+            for (m = 0; m < nm; m++)
+                if (fell_back(sp[i * nm + m], asked[i * nm + m]))
+                    printf("  * %s has no %s model; the rows marked %s* use "
+                           "%s\n", molq_species_name(sp[i * nm + m]),
+                           asked[i * nm + m], asked[i * nm + m],
+                           used_name(sp[i * nm + m]));
     }
     return 0;
 }
@@ -800,7 +1154,8 @@ static const char *mode_name(const molq_species *sp, size_t m)
     return name;
 }
 
-static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
+static int cmd_modes(const options *o, const molq_species **sp,
+                     const char *const *asked, size_t nsp)
 {
     size_t i, t, k, m, maxm = 0;
     double *pm, total[N_MODE];
@@ -841,8 +1196,7 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
             json_t *e = jcheck(&j, json_object()), *rows, *names;
             jappend(&j, list, e);
             jset(&j, e, "name", json_string(molq_species_name(sp[i])));
-            jset(&j, e, "model",
-                 json_string(model_name(molq_species_model(sp[i]))));
+            json_models(&j, e, sp[i], asked[i]);
             names = jcheck(&j, json_array());
             for (m = 0; m < nm; m++)
                 jappend(&j, names, json_string(mode_name(sp[i], m)));
@@ -883,7 +1237,8 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
     }
 
     if (o->format == FMT_CSV)
-        puts("species,T,mode,lnq,u,cv,s");
+        puts(show_models(o) ? "species,model,model_used,T,mode,lnq,u,cv,s"
+                            : "species,T,mode,lnq,u,cv,s");
     else
         printf("molq per-mode contributions at p = %.10g Pa, per mole "
                "(u: thermal energy above the mode's ground level)\n",
@@ -892,7 +1247,7 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
         size_t nm = molq_species_mode_count(sp[i]);
         if (o->format == FMT_TEXT) {
             putchar('\n');
-            text_species_title(sp[i], 1);
+            text_species_title(sp[i], 1, asked[i]);
         }
         for (t = 0; t < o->nT; t++) {
             if ((st = modes_eval(sp[i], o->T[t], o->p, pm, total)) !=
@@ -916,9 +1271,14 @@ static int cmd_modes(const options *o, const molq_species **sp, size_t nsp)
                 const double *v = m < nm ? &pm[m * N_MODE] : total;
                 if (o->format == FMT_CSV) {
                     csv_field(molq_species_name(sp[i]));
-                    printf(",%.12g,%s", o->T[t], name);
-                    for (k = 0; k < N_MODE; k++)
-                        printf(",%.12g", v[k]);
+                    csv_models(sp[i], asked[i], o);
+                    putchar(',');
+                    csv_number(o->T[t]);
+                    printf(",%s", name);
+                    for (k = 0; k < N_MODE; k++) {
+                        putchar(',');
+                        csv_number(v[k]);
+                    }
                 } else {
                     printf("%*s", TW, name);
                     for (k = 0; k < N_MODE; k++)
@@ -948,16 +1308,41 @@ static molq_status spin_value(const molq_species *sp, double T, int per_mass,
     return st;
 }
 
-static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
+/* Whether the species has a diatomic level sum, the one mode with spin
+ * isomers. */
+static int has_rovibronic(const molq_species *sp)
+{
+    size_t m, n = molq_species_mode_count(sp);
+    molq_mode_kind kind;
+    for (m = 0; m < n; m++)
+        if (molq_species_mode_kind(sp, m, &kind) == MOLQ_OK &&
+            kind == MOLQ_MODE_ROVIBRONIC)
+            return 1;
+    return 0;
+}
+
+static int cmd_spin(const options *o, const molq_species **sp,
+                    const char *const *asked, size_t nsp)
 {
     size_t i, t;
     double v, Tmin = min_of(o->T, o->nT);
     const char *unit = o->per_mass ? "J/kg" : "J/mol";
     molq_status st;
 
-    /* The library answers MOLQ_EARG for species it has no spin isomers
-     * for; say why, before any output. */
+    /* The library has spin isomers for diatomic level sums only (a
+     * rovibronic mode); for every other species it answers 0 or MOLQ_EARG.
+     * Say why, before any output, rather than print a 0 that means "not
+     * modelled". */
     for (i = 0; i < nsp; i++) {
+        if (molq_species_structure(sp[i]) == MOLQ_ATOM ||
+            (molq_species_model(sp[i]) == MOLQ_MODEL_LEVELS &&
+             !has_rovibronic(sp[i]))) {
+            fprintf(stderr, "molq: %s has no spin-isomer model in molq "
+                    "(molq spin covers diatomics described by "
+                    "diatomic_states, model levels)\n",
+                    molq_species_name(sp[i]));
+            return EXIT_DATA;
+        }
         st = spin_value(sp[i], Tmin, o->per_mass, &v);
         if (st == MOLQ_EARG &&
             molq_species_model(sp[i]) != MOLQ_MODEL_LEVELS) {
@@ -996,8 +1381,7 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
             json_t *e = jcheck(&j, json_object()), *rows;
             jappend(&j, list, e);
             jset(&j, e, "name", json_string(molq_species_name(sp[i])));
-            jset(&j, e, "model",
-                 json_string(model_name(molq_species_model(sp[i]))));
+            json_models(&j, e, sp[i], asked[i]);
             jset(&j, e, "molar_mass",
                  json_real(molq_species_molar_mass(sp[i]) * 1e3));
             rows = jcheck(&j, json_array());
@@ -1020,7 +1404,8 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
     }
 
     if (o->format == FMT_CSV)
-        puts("species,T," SPIN_COLUMN);
+        puts(show_models(o) ? "species,model,model_used,T," SPIN_COLUMN
+                            : "species,T," SPIN_COLUMN);
     else
         printf("molq ortho-para (even/odd-J) conversion enthalpy "
                "h_frozen - h_equilibrium, per %s\n"
@@ -1030,7 +1415,7 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
     for (i = 0; i < nsp; i++) {
         if (o->format == FMT_TEXT) {
             printf("\n");
-            text_species_title(sp[i], 1);
+            text_species_title(sp[i], 1, asked[i]);
             printf("%*s%*s\n%*s%*s\n", TW, "T", 2 * TW, SPIN_COLUMN, TW, "K",
                    2 * TW, unit);
         }
@@ -1043,7 +1428,12 @@ static int cmd_spin(const options *o, const molq_species **sp, size_t nsp)
             }
             if (o->format == FMT_CSV) {
                 csv_field(molq_species_name(sp[i]));
-                printf(",%.12g,%.12g\n", o->T[t], v);
+                csv_models(sp[i], asked[i], o);
+                putchar(',');
+                csv_number(o->T[t]);
+                putchar(',');
+                csv_number(v);
+                putchar('\n');
             } else {
                 printf("%*.8g %*.7g\n", TW, o->T[t], 2 * TW - 1, v);
             }
@@ -1119,11 +1509,12 @@ static int cmd_list(const options *o, const sets *s)
             csv_field(molq_species_name(e[i].sp));
             putchar(',');
             csv_field(molq_species_formula(e[i].sp));
-            printf(",%s,%s,%.12g,%s,", structure_of(e[i].sp),
-                   model_name(molq_species_model(e[i].sp)),
-                   molq_species_molar_mass(e[i].sp) * 1e3,
-                   molq_species_has_formation_enthalpy(e[i].sp) ? "yes"
-                                                                : "no");
+            printf(",%s,%s,", structure_of(e[i].sp),
+                   model_name(molq_species_model(e[i].sp)));
+            csv_number(molq_species_molar_mass(e[i].sp) * 1e3);
+            printf(",%s,", molq_species_has_formation_enthalpy(e[i].sp)
+                               ? "yes"
+                               : "no");
             csv_field(e[i].set);
             putchar(',');
             csv_field(molq_species_source(e[i].sp));
@@ -1179,7 +1570,9 @@ static int finish_output(int rc)
 
 /* The species `base` with model_table entry `m` (-1: its own model):
  * `base` itself when it already uses that model, else a new species stored
- * in *owned (the caller frees it).  @return NULL after printing an error. */
+ * in *owned (the caller frees it).  An atom without data for model `m`
+ * keeps its own model, with a note on stderr.  @return NULL after printing
+ * an error. */
 static const molq_species *with_model(const molq_species *base, int m,
                                       molq_species **owned)
 {
@@ -1190,6 +1583,16 @@ static const molq_species *with_model(const molq_species *base, int m,
         return base;
     st = molq_species_with_model(base, model_table[m].id, owned, err,
                                  sizeof err);
+    if (st != MOLQ_OK && molq_species_structure(base) == MOLQ_ATOM) {
+        /* An atom is translation and electronic levels in every model: its
+         * own model gives the same physics.  Use it and say so (the output
+         * carries model_used). */
+        fprintf(stderr, "molq: note: %s has no %s model; using %s\n",
+                molq_species_name(base), model_name(model_table[m].id),
+                model_name(molq_species_model(base)));
+        *owned = NULL;
+        return base;
+    }
     if (st != MOLQ_OK) {
         fprintf(stderr, "molq: species '%s' cannot use model '%s': %s (%s)\n",
                 molq_species_name(base), model_name(model_table[m].id), err,
@@ -1200,21 +1603,13 @@ static const molq_species *with_model(const molq_species *base, int m,
     return *owned;
 }
 
-static int is_command(const char *word)
-{
-    int c;
-    for (c = 0; c < N_CMDS; c++)
-        if (strcmp(word, cmd_name[c]) == 0)
-            return 1;
-    return 0;
-}
-
 int main(int argc, char **argv)
 {
     options o;
     sets s = {NULL, NULL, NULL};
     const molq_species **sp = NULL; /* nvar species to evaluate */
     molq_species **owned = NULL;    /* those made here with another model */
+    const char **asked = NULL;      /* model asked for each, NULL: own */
     size_t nvar = 0, nm = 1;
     int cmd, rc;
     size_t i, k;
@@ -1225,9 +1620,24 @@ int main(int argc, char **argv)
     }
     if (strcmp(argv[1], "--help") == 0 || strcmp(argv[1], "-h") == 0 ||
         strcmp(argv[1], "help") == 0) {
-        if (strcmp(argv[1], "help") == 0 && argc > 2 && !is_command(argv[2])) {
-            usage_error("help: unknown command '%s'%s", argv[2], "");
+        if (strcmp(argv[1], "help") == 0 && argc > 3) {
+            usage_error("'molq help' takes one command name (got '%s' "
+                        "after '%s')", argv[3], argv[2]);
             return EXIT_USAGE;
+        }
+        if (strcmp(argv[1], "help") == 0 && argc > 2 &&
+            strcmp(argv[2], "help") != 0) {
+            for (cmd = 0; cmd < N_CMDS; cmd++)
+                if (strcmp(argv[2], cmd_name[cmd]) == 0)
+                    break;
+            if (cmd == N_CMDS) {
+                usage_error("help: unknown command '%s' (nearest: '%s'; the "
+                            "commands are table, modes, spin and list)",
+                            argv[2], nearest_command(argv[2]));
+                return EXIT_USAGE;
+            }
+            print_command_help(stdout, cmd);
+            return finish_output(0);
         }
         print_help(stdout);
         return finish_output(0);
@@ -1241,10 +1651,12 @@ int main(int argc, char **argv)
         if (strcmp(argv[1], cmd_name[cmd]) == 0)
             break;
     if (cmd == N_CMDS) {
-        usage_error(argv[1][0] == '-' ? "unknown option '%s'%s"
-                                      : "unknown command '%s'%s (use table, "
-                                        "modes, spin, list or help)",
-                    argv[1], "");
+        if (argv[1][0] == '-')
+            usage_error("unknown option '%s'%s", argv[1], "");
+        else
+            usage_error("unknown command '%s' (nearest: '%s'; use table, "
+                        "modes, spin, list or help)",
+                        argv[1], nearest_command(argv[1]));
         return EXIT_USAGE;
     }
 
@@ -1257,7 +1669,7 @@ int main(int argc, char **argv)
     if (rc != 0)
         goto out;
     if (o.help) {
-        print_help(stdout);
+        print_command_help(stdout, cmd);
         rc = finish_output(0);
         goto out;
     }
@@ -1280,7 +1692,8 @@ int main(int argc, char **argv)
     nvar = o.nnames * nm;
     sp = malloc(nvar * sizeof *sp);
     owned = calloc(nvar, sizeof *owned);
-    if (sp == NULL || owned == NULL) {
+    asked = calloc(nvar, sizeof *asked);
+    if (sp == NULL || owned == NULL || asked == NULL) {
         fputs("molq: out of memory\n", stderr);
         rc = EXIT_DATA;
         goto out;
@@ -1294,6 +1707,7 @@ int main(int argc, char **argv)
         for (k = 0; k < nm; k++) {
             int m = o.ncompare > 0 ? (int)o.compare[k] : o.model;
             sp[i * nm + k] = with_model(base, m, &owned[i * nm + k]);
+            asked[i * nm + k] = m >= 0 ? model_name(model_table[m].id) : NULL;
             if (sp[i * nm + k] == NULL) {
                 rc = EXIT_DATA;
                 goto out;
@@ -1301,17 +1715,18 @@ int main(int argc, char **argv)
         }
     }
     if (cmd == CMD_TABLE)
-        rc = cmd_table(&o, sp, o.nnames, nm, o.ncompare > 0);
+        rc = cmd_table(&o, sp, asked, o.nnames, nm, o.ncompare > 0);
     else if (cmd == CMD_MODES)
-        rc = cmd_modes(&o, sp, o.nnames);
+        rc = cmd_modes(&o, sp, asked, o.nnames);
     else
-        rc = cmd_spin(&o, sp, o.nnames);
+        rc = cmd_spin(&o, sp, asked, o.nnames);
     rc = finish_output(rc);
 out:
     if (owned != NULL)
         for (i = 0; i < nvar; i++)
             molq_species_free(owned[i]);
     free(owned);
+    free(asked);
     free(sp);
     free(o.names);
     if (o.T_owned)

@@ -68,8 +68,8 @@ molq_status molq_json_unknown_key(molq_json_ctx *c, const char *field,
         return molq_json_key_error(c, MOLQ_EKEY, field, what);
     }
     return molq_json_key_error(c, MOLQ_EKEY, field,
-                               "unknown key (see the README for the keys of "
-                               "a species file)");
+                               "unknown key (the README lists the valid "
+                               "keys)");
 }
 
 /* Reject keys not in the NULL-terminated list `allowed`. */

@@ -47,7 +47,10 @@ T_REF = 298.15
 
 COLUMNS = ["cp", "cv", "h", "s", "g", "h_minus_h298", "gef", "dcp_dT"]
 CSV_HEADER = "species,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
-CSV_HEADER_COMPARE = "species,model,T,cp,cv,h,s,g,h_minus_h298,gef,dcp_dT"
+# With --model or --compare: the model asked for and the one evaluated.
+CSV_HEADER_COMPARE = ("species,model,model_used,T,cp,cv,h,s,g,h_minus_h298,"
+                      "gef,dcp_dT")
+CSV_HEADER_MODEL = CSV_HEADER_COMPARE
 MODELS = ["rrho", "levels"]
 DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
 BUILTIN = ["Ar", "O", "N", "Cl", "H2", "N2", "O2", "CO", "NO", "OH", "CO2", "H2O",
@@ -71,12 +74,20 @@ def run_ok(testcase, *args):
     return out
 
 
+def drop_model_columns(text):
+    """csv text of a --model run -> the same without model, model_used."""
+    rows = list(csv.reader(io.StringIO(text)))
+    assert rows[0][1:3] == ["model", "model_used"], rows[0]
+    return "".join(",".join(r[:1] + r[3:]) + "\n" for r in rows)
+
+
 def parse_csv(text):
     """csv text -> (header line, list of row dicts with floats)."""
     lines = text.splitlines()
     rows = []
     for r in csv.DictReader(io.StringIO(text)):
-        rows.append({k: (v if k in ("species", "mode", "model") else float(v))
+        rows.append({k: (v if k in ("species", "mode", "model", "model_used")
+                         else float(v))
                      for k, v in r.items()})
     return lines[0], rows
 
@@ -379,7 +390,7 @@ class CsvFormat(unittest.TestCase):
         self.assertEqual(fields[0], "1234.5")
         for f in fields[1:]:
             mantissa = f.lower().split("e")[0].lstrip("-").replace(".", "")
-            # %.12g: 12 significant digits, trailing zeros dropped.
+            # Shortest round-trip decimals: at least 10 digits here.
             self.assertGreaterEqual(len(mantissa.lstrip("0")), 10, f)
 
 
@@ -486,7 +497,7 @@ class IndependentModel(unittest.TestCase):
 class FiniteDifference(unittest.TestCase):
     """3. dcp_dT against a central difference of the CLI's own cp.
 
-    The json output carries 17 significant digits, so a step of
+    The json output reads back as the exact doubles, so a step of
     h = 1e-4 T keeps round-off (~1e-16 cp / h) and truncation
     (~(h/T)^2 x^2/6 for a mode with x = theta/T) well below the 1e-6
     relative tolerance."""
@@ -680,12 +691,18 @@ BAD_ARGS = [
     (["spin"], 2, ["at least one species"]),
     # A species whose data cannot support the model: the library's
     # message names the missing field.
-    (["table", "Ar", "--model", "levels"], 1,
-     ["'Ar'", "model 'levels'", "diatomic_states"]),
-    (["table", "N2", "Ar", "--compare", "rrho,levels"], 1,
-     ["'Ar'", "model 'levels'", "diatomic_states"]),
-    (["modes", "O", "--model", "levels"], 1, ["'O'", "diatomic_states"]),
-    (["spin", "Ar"], 1, ["'Ar'", "model 'rrho'", "levels"]),
+    # A molecule without level data cannot use the levels model (an atom
+    # keeps its own model instead: test_cli_usability.py).
+    (["table", "demo-linear", "--data", DEMO, "--model", "levels"], 1,
+     ["'demo-linear'", "model 'levels'", "diatomic_states"]),
+    (["table", "N2", "demo-linear", "--data", DEMO, "--compare",
+      "rrho,levels"], 1,
+     ["'demo-linear'", "model 'levels'", "diatomic_states"]),
+    (["modes", "demo-diatomic", "--data", DEMO, "--model", "levels"], 1,
+     ["'demo-diatomic'", "diatomic_states"]),
+    (["spin", "Ar"], 1, ["Ar has no spin-isomer model"]),
+    (["spin", "N2", "--model", "rrho"], 1, ["'N2'", "model 'rrho'",
+                                            "levels"]),
     (["spin", "demo-diatomic", "--data", str(DEMO)], 1,
      ["'demo-diatomic'", "model 'rrho'", "levels"]),
     # Levels model without a diatomic level sum (hindered rotor).
@@ -760,15 +777,17 @@ class BuiltinFormats(unittest.TestCase):
         for sp in doc["species"]:
             self.assertEqual(len(sp["rows"]), 4)
             for r in sp["rows"]:
-                # The csv prints %.12g of the very same double.
-                line = ",".join([sp["name"], "%.12g" % r["T"]]
-                                + ["%.12g" % r[c] for c in COLUMNS])
-                self.assertEqual(line, csv_lines[i])
+                # The csv prints the very same double (both formats print
+                # the shortest decimal that reads back exactly).
+                fields = csv_lines[i].split(",")
+                self.assertEqual(fields[0], sp["name"])
+                self.assertEqual([float(f) for f in fields[1:]],
+                                 [r["T"]] + [r[c] for c in COLUMNS])
                 i += 1
         self.assertEqual(i, len(rows))
 
     def test_json_round_trip_digits(self):
-        # 17 significant digits: the json numbers are the doubles the
+        # Round-trip digits: the json numbers are the doubles the
         # library computed; recomputing a difference must agree exactly
         # with the same difference from a second run.
         a = json.loads(run_ok(self, "table", "CO2", "--T", "1000",
@@ -958,8 +977,8 @@ class BuiltinFormats(unittest.TestCase):
         run_ok(self, "table", "CO", "--data", shadow)
 
     def test_help_and_version(self):
-        for args in (["--help"], ["help"], ["help", "table"],
-                     ["table", "--help"], ["-h"]):
+        # The full overview (each command's own help: test_cli_usability).
+        for args in (["--help"], ["help"], ["-h"]):
             out = run_ok(self, *args)
             flat = " ".join(out.split())
             self.assertIn(CAUTION, flat)
@@ -1023,14 +1042,15 @@ class ModelChoice(unittest.TestCase):
                            "csv")
                 b = run_ok(self, "table", name, "--data", DEMO, "--model",
                            own_model[name], "--format", "csv")
-                self.assertEqual(a, b)
+                self.assertEqual(a, drop_model_columns(b))
         # A mixed list: --model rrho switches N2 and leaves the atom (which
         # has only rigid-rotor data) as it was.
         mixed = run_ok(self, "table", "N2", "Ar", "--model", "rrho",
                        "--T", "1500", "--format", "csv")
         own = run_ok(self, "table", "N2", "Ar", "--T", "1500", "--format",
                      "csv")
-        self.assertEqual(mixed.splitlines()[0], CSV_HEADER)
+        self.assertEqual(mixed.splitlines()[0], CSV_HEADER_MODEL)
+        mixed = drop_model_columns(mixed)
         self.assertNotEqual(mixed.splitlines()[1], own.splitlines()[1])
         self.assertEqual(mixed.splitlines()[2], own.splitlines()[2])
 
@@ -1067,14 +1087,15 @@ class Compare(unittest.TestCase):
             body = rows[1:]
             temps = [float(t) for t in self.TEMPS.split(",")]
             # species -> T -> model, in the order asked for.
-            self.assertEqual([(r[0], float(r[2]), r[1]) for r in body],
-                             [(n, t, m) for n in names for t in temps
+            self.assertEqual([(r[0], float(r[3]), r[1], r[2])
+                              for r in body],
+                             [(n, t, m, m) for n in names for t in temps
                               for m in order])
             # Each row equals the same species/T/model from a --model run,
             # as printed (same double, same format).
             for model in order:
                 single = csv_rows(self.separate(names, model))[1:]
-                mine = [[r[0]] + r[2:] for r in body if r[1] == model]
+                mine = [r for r in body if r[1] == model]
                 self.assertEqual(mine, single)
         # Without --compare the header stays as it always was.
         out = run_ok(self, "table", "N2", "--format", "csv")
@@ -1124,7 +1145,8 @@ class Compare(unittest.TestCase):
                      "--compare", "rrho", "--format", "csv", "--T", "700")
         self.assertEqual(out.splitlines()[0], CSV_HEADER_COMPARE)
         self.assertEqual(len(out.splitlines()), 2)
-        self.assertTrue(out.splitlines()[1].startswith("demo-hetero,rrho,700,"))
+        self.assertTrue(out.splitlines()[1].startswith(
+            "demo-hetero,rrho,rrho,700,"))
 
 
 @unittest.skipIf(not CLI, "MOLQ_CLI is not set")
@@ -1236,10 +1258,15 @@ class LevelsFile(unittest.TestCase):
                      ",".join(str(t) for t in self.TEMPS), "--p", repr(p),
                      "--format", "csv", *extra)
         header, rows = parse_csv(out)
-        self.assertEqual(header, CSV_HEADER)
+        self.assertEqual(header, CSV_HEADER_MODEL if "--model" in extra
+                         else CSV_HEADER)
         self.assertEqual(len(rows), len(models) * len(self.TEMPS))
         by_name = {m.name: m for m in models}
         for r in rows:
+            if "--model" in extra:
+                asked = extra[extra.index("--model") + 1]
+                self.assertEqual((r["model"], r["model_used"]),
+                                 (asked, asked))
             want = by_name[r["species"]].row(r["T"], p)
             for col in COLUMNS:
                 tol = max(1e-9 * abs(want[col]),

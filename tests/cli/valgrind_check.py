@@ -37,10 +37,21 @@ CASES = [
       "--model", "rrho"], 0),
     (["spin", "H2", "demo-homo-frozen", "--data",
       str(DATA / "demo_levels.json"), "--per-mass"], 0),
-    (["table", "N2", "Ar", "--compare", "rrho,levels"], 1),
+    # Ar has no levels model: it keeps rrho, with a note.
+    (["table", "N2", "Ar", "--compare", "rrho,levels"], 0),
+    (["table", "N2", "Ar", "--compare", "rrho,levels", "--format", "json"],
+     0),
+    (["modes", "Ar", "--model", "levels", "--format", "csv"], 0),
+    (["table", "demo-linear", "--data", str(DATA / "demo_species.json"),
+      "--model", "levels"], 1),
+    (["spin", "H2O"], 1),  # no spin-isomer model
+    (["help", "table"], 0),
+    (["list", "--help"], 0),
+    (["help", "tabel"], 2),
+    (["list", "--data", str(DATA / "no-such-file.json")], 1),
     (["table", "N2", "H2O", "CO2", "--compare", "rrho,levels", "--format",
       "csv"], 0),
-    (["spin", "H2", "Ar"], 1),  # Ar uses rrho: an evaluation error
+    (["spin", "H2", "Ar"], 1),  # Ar has no spin-isomer model
     (["table", "N2", "--compare", "rrho,rrho"], 2),
     (["table", "N2", "--model", "harmonic"], 2),
 ]

@@ -53,8 +53,10 @@ Copying and pickling
 ``molq.property_names()``, ``molq.property_unit(name)``, ``molq.version()``.
 
 The library is found through the environment variable MOLQ_LIBRARY (full
-path to libmolq.so), else a build tree of this checkout (``build*/lib``),
-else the system's library path.  Species objects may be evaluated from any
+path to libmolq.so), else, for an installed copy of the package, the
+library installed with it (path recorded in ``molq/_config.py``) or, in a
+source checkout, a build tree of this checkout (``build*/lib``), else the
+system's library path.  Species objects may be evaluated from any
 number of threads at once.
 
 Example

@@ -5,11 +5,16 @@ Search order for the shared library:
 1. the environment variable ``MOLQ_LIBRARY`` (full path to ``libmolq.so``);
    when it is set and cannot be loaded, the import fails rather than
    silently picking up another copy;
-2. a build tree of the source checkout this package sits in:
-   ``<checkout>/build*/lib/libmolq.so`` where ``<checkout>`` is two levels
-   above ``bindings/python``, newest first, skipping sanitiser builds
-   (a build directory whose name contains ``san``, such as ``build-asan``:
-   an instrumented library cannot be loaded into an uninstrumented Python);
+2. for an installed copy of the package (``meson install`` puts a generated
+   ``_config.py`` beside this file): the library installed with it, by its
+   absolute path (``_config.INSTALLED_LIBRARY``), so no environment variable
+   is needed; an installed copy does not look for build trees;
+   for the package in a source checkout (no ``_config.py``): a build tree of
+   that checkout, ``<checkout>/build*/lib/libmolq.so`` where ``<checkout>``
+   is two levels above ``bindings/python``, newest first, skipping sanitiser
+   builds (a build directory whose name contains ``san``, such as
+   ``build-asan``: an instrumented library cannot be loaded into an
+   uninstrumented Python);
 3. ``ctypes.util.find_library("molq")``, then ``libmolq.so.0`` through the
    dynamic loader's usual search path.
 """
@@ -31,14 +36,32 @@ _CHECKOUT = os.path.normpath(os.path.join(_PKG_DIR, os.pardir, os.pardir,
                                           os.pardir))
 
 
-def _candidates(checkout=_CHECKOUT):
-    """Yield library paths or names to try after MOLQ_LIBRARY, in order."""
-    for path in sorted(glob.glob(os.path.join(checkout, "build*", "lib",
-                                              "libmolq.so")),
-                       key=_mtime, reverse=True):
-        build_dir = os.path.basename(os.path.dirname(os.path.dirname(path)))
-        if "san" not in build_dir:
-            yield path
+
+def _installed_library():
+    """The library path recorded at install time, or None (uninstalled)."""
+    try:
+        from . import _config
+    except ImportError:
+        return None
+    return _config.INSTALLED_LIBRARY
+
+
+def _candidates(checkout=_CHECKOUT, installed=None):
+    """Yield library paths or names to try after MOLQ_LIBRARY, in order.
+
+    `installed` is the library path recorded by an installed copy
+    (_installed_library()); with it, the build trees of `checkout` are not
+    searched."""
+    if installed:
+        yield installed
+    else:
+        for path in sorted(glob.glob(os.path.join(checkout, "build*", "lib",
+                                                  "libmolq.so")),
+                           key=_mtime, reverse=True):
+            build_dir = os.path.basename(os.path.dirname(os.path.dirname(
+                path)))
+            if "san" not in build_dir:
+                yield path
     found = ctypes.util.find_library("molq")
     if found:
         yield found
@@ -61,7 +84,7 @@ def _load():
             raise ImportError("molq: MOLQ_LIBRARY=%r could not be loaded: %s"
                               % (env, exc)) from exc
     tried = []
-    for cand in _candidates():
+    for cand in _candidates(installed=_installed_library()):
         try:
             return ctypes.CDLL(cand)
         except OSError as exc:

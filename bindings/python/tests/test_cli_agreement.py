@@ -66,6 +66,13 @@ class CliAgreement(unittest.TestCase):
                                  % (" ".join(cmd), proc.returncode,
                                     proc.stderr))
         cls.rows = list(csv.reader(io.StringIO(proc.stdout)))
+        if cls.MODEL is not None:
+            # With --model the CLI adds the columns model (asked for) and
+            # model_used (evaluated); every species here has the model.
+            assert cls.rows[0][1:3] == ["model", "model_used"], cls.rows[0]
+            for r in cls.rows[1:]:
+                assert r[1:3] == [cls.MODEL, cls.MODEL], r
+            cls.rows = [r[:1] + r[3:] for r in cls.rows]
         cls.db = molq.Database.builtin()
 
     def species(self, name):

@@ -55,6 +55,46 @@ class Loading(unittest.TestCase):
             self.assertEqual(found[:3], [paths[1], paths[2], paths[0]])
             self.assertEqual(found[-1], "libmolq.so.0")
 
+    def test_installed_copy_prefers_recorded_library(self):
+        # An installed copy (with _config.py) tries the library recorded at
+        # install time first and never a build tree beside it.
+        with tempfile.TemporaryDirectory() as root:
+            d = os.path.join(root, "build", "lib")
+            os.makedirs(d)
+            tree_lib = os.path.join(d, "libmolq.so")
+            open(tree_lib, "w").close()
+            found = list(_lib._candidates(root,
+                                          installed="/opt/q/libmolq.so.0"))
+            self.assertEqual(found[0], "/opt/q/libmolq.so.0")
+            self.assertNotIn(tree_lib, found)
+            self.assertEqual(found[-1], "libmolq.so.0")
+
+    def test_installed_copy_loads_without_environment(self):
+        # A copy of the package laid out as `meson install` lays it out
+        # (the sources plus a generated _config.py naming the library)
+        # imports with neither MOLQ_LIBRARY nor a build tree beside it.
+        lib_path = os.environ.get("MOLQ_LIBRARY")
+        if not lib_path:
+            self.skipTest("MOLQ_LIBRARY not set")
+        src = os.path.dirname(os.path.abspath(molq.__file__))
+        with tempfile.TemporaryDirectory() as root:
+            pkg = os.path.join(root, "molq")
+            os.makedirs(pkg)
+            for name in ("__init__.py", "_core.py", "_lib.py"):
+                with open(os.path.join(src, name)) as f_in, \
+                        open(os.path.join(pkg, name), "w") as f_out:
+                    f_out.write(f_in.read())
+            with open(os.path.join(pkg, "_config.py"), "w") as f:
+                f.write("INSTALLED_LIBRARY = %r\n" % lib_path)
+            proc = run_python("""
+                import molq
+                print(molq.library_path())
+                print(round(molq.Database.builtin()["N2"].cp(1000.0), 1))
+                """, {"PYTHONPATH": root}, drop=("MOLQ_LIBRARY",))
+        self.assertEqual(proc.returncode, 0, proc.stderr)
+        # cp of N2 at 1000 K: 32.697 J/(mol K), NIST-JANAF (1998).
+        self.assertEqual(proc.stdout.split(), [lib_path, "32.7"])
+
     def test_version_check(self):
         _lib.check_version(100, "0.1.0", "x")      # this binding's version
         _lib.check_version(215, "0.2.15", "x")     # same major, newer

@@ -1,0 +1,342 @@
+"""Regression tests of the molq command-line tool: model fallback for
+atoms, per-subcommand help, `molq spin` for species without a spin-isomer
+model, shortest round-trip numbers in json/csv, a missing file named once.
+
+The tool is found through MOLQ_CLI (tests/cli/meson.build).  Sources of the
+expected values are named beside each check:
+
+* an atom has only translation and electronic levels, so a level-sum model
+  and the rigid-rotor/harmonic model describe it the same way (textbook
+  statistical mechanics, common practice);
+* "shortest decimal that reads back as the same double": Python's repr of a
+  float is that shortest string (Python language reference, float repr
+  since Python 3.1; common practice), used here as the yardstick;
+* the molar mass of N2, 2 x 14.0067 = 28.0134 g/mol, is the value the
+  built-in set gives (`molq list`; IUPAC atomic weight of N, from memory);
+* tests/cli/data files are INVENTED test data.
+"""
+
+import csv
+import io
+import json
+import os
+import re
+import tempfile
+import subprocess
+import unittest
+from pathlib import Path
+
+CLI = os.environ.get("MOLQ_CLI")
+DATA = Path(__file__).resolve().parent / "data"
+LEVELS = DATA / "demo_levels.json"
+BAD = DATA / "bad"
+COLUMNS = ["cp", "cv", "h", "s", "g", "h_minus_h298", "gef", "dcp_dT"]
+SUBCOMMANDS = ["table", "modes", "spin", "list"]
+# Options each subcommand accepts (molq.c opt_table).
+OPTIONS = {
+    "table": ["--data", "--T", "--p", "--format", "--per-mass", "--model",
+              "--compare"],
+    "modes": ["--data", "--T", "--p", "--format", "--model"],
+    "spin": ["--data", "--T", "--format", "--per-mass", "--model"],
+    "list": ["--data", "--format"],
+}
+ALL_OPTIONS = OPTIONS["table"]
+NUMBER = re.compile(r"(?<![\w.\"])-?\d+(?:\.\d+)?(?:[eE][-+]?\d+)?(?![\w\"])")
+
+
+def run(*args):
+    p = subprocess.run([CLI] + [str(a) for a in args], capture_output=True,
+                       text=True, timeout=60)
+    return p.returncode, p.stdout, p.stderr
+
+
+def run_ok(tc, *args):
+    rc, out, err = run(*args)
+    tc.assertEqual(rc, 0, "molq %s failed: %s" % (args, err))
+    return out, err
+
+
+def digits(token):
+    """Significant digits of a decimal number token."""
+    mant = token.lower().split("e")[0].lstrip("-").replace(".", "")
+    mant = mant.lstrip("0").rstrip("0")
+    return len(mant) if mant else 1
+
+
+def assert_shortest(tc, token):
+    """token reads back as a double whose shortest repr has as many
+    significant digits as token (Python repr is the shortest)."""
+    x = float(token)
+    tc.assertEqual(digits(token), digits(repr(x)),
+                   "%s is not the shortest form of %r" % (token, x))
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class AtomModelFallback(unittest.TestCase):
+    """An atom asked for a model it has no data for uses its own model and
+    says so (model_used in json/csv, a note in text and on stderr)."""
+
+    NOTE = "molq: note: Ar has no levels model; using rrho"
+
+    def test_model_levels_json(self):
+        out, err = run_ok(self, "table", "Ar", "--model", "levels", "--T",
+                          "300,1000", "--format", "json")
+        self.assertIn(self.NOTE, err)
+        self.assertEqual(err.count("molq: note:"), 1, err)
+        sp = json.loads(out)["species"][0]
+        self.assertEqual(sp["model"], "levels")
+        self.assertEqual(sp["model_used"], "rrho")
+        own = json.loads(run_ok(self, "table", "Ar", "--T", "300,1000",
+                                "--format", "json")[0])["species"][0]
+        self.assertEqual(own["model"], "rrho")
+        self.assertEqual(own["model_used"], "rrho")
+        # Same species, same model: the very same numbers.
+        self.assertEqual(sp["rows"], own["rows"])
+
+    def test_model_levels_csv_and_mixed_list(self):
+        out, err = run_ok(self, "table", "N2", "Ar", "--model", "levels",
+                          "--T", "500", "--format", "csv")
+        rows = list(csv.reader(io.StringIO(out)))
+        self.assertEqual(rows[0], ["species", "model", "model_used", "T"]
+                         + COLUMNS)
+        self.assertEqual(rows[1][:3], ["N2", "levels", "levels"])
+        self.assertEqual(rows[2][:3], ["Ar", "levels", "rrho"])
+        self.assertIn(self.NOTE, err)
+        self.assertNotIn("N2 has no", err)
+
+    def test_compare(self):
+        out, err = run_ok(self, "table", "Ar", "--compare", "rrho,levels",
+                          "--T", "300", "--format", "csv")
+        rows = list(csv.reader(io.StringIO(out)))
+        self.assertEqual(rows[0], ["species", "model", "model_used", "T"]
+                         + COLUMNS)
+        self.assertEqual([r[:3] for r in rows[1:]],
+                         [["Ar", "rrho", "rrho"], ["Ar", "levels", "rrho"]])
+        self.assertEqual(rows[1][3:], rows[2][3:])
+        self.assertIn(self.NOTE, err)
+        doc = json.loads(run_ok(self, "table", "Ar", "--compare",
+                                "rrho,levels", "--T", "300", "--format",
+                                "json")[0])
+        self.assertEqual([(m["model"], m["model_used"])
+                          for m in doc["species"][0]["models"]],
+                         [("rrho", "rrho"), ("levels", "rrho")])
+        text, _ = run_ok(self, "table", "Ar", "--compare", "rrho,levels",
+                         "--T", "300")
+        self.assertIn("levels*", text)
+        self.assertIn("Ar has no levels model", text)
+
+    def test_text_and_modes(self):
+        text, err = run_ok(self, "table", "Ar", "--model", "levels", "--T",
+                           "300")
+        self.assertIn("model rrho", text)
+        self.assertIn("Ar has no levels model", text)
+        out, err = run_ok(self, "modes", "Ar", "--model", "levels", "--T",
+                          "300", "--format", "json")
+        self.assertIn(self.NOTE, err)
+        sp = json.loads(out)["species"][0]
+        self.assertEqual((sp["model"], sp["model_used"]), ("levels", "rrho"))
+        self.assertEqual(sp["modes"], ["translation", "electronic"])
+
+    def test_molecule_without_data_still_an_error(self):
+        # A molecule's level sum is different physics from its rigid rotor:
+        # no silent substitution.  demo-linear (invented) has no level data.
+        rc, out, err = run("table", "demo-linear", "--data",
+                           DATA / "demo_species.json", "--model", "levels")
+        self.assertEqual(rc, 1, err)
+        self.assertEqual(out, "")
+        self.assertIn("cannot use model 'levels'", err)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class SubcommandHelp(unittest.TestCase):
+    """Each subcommand has its own help; `molq help` / --help the full
+    overview; an unknown `molq help foo` names foo and the nearest."""
+
+    def test_full_help(self):
+        full, _ = run_ok(self, "--help")
+        self.assertEqual(run_ok(self, "help")[0], full)
+        self.assertEqual(run_ok(self, "-h")[0], full)
+        for sub in SUBCOMMANDS:
+            self.assertRegex(full, r"(?m)^  %s\s" % sub)
+
+    def test_each_subcommand(self):
+        full, _ = run_ok(self, "--help")
+        seen = set()
+        for sub in SUBCOMMANDS:
+            with self.subTest(sub=sub):
+                a, _ = run_ok(self, "help", sub)
+                b, _ = run_ok(self, sub, "--help")
+                c, _ = run_ok(self, sub, "-h")
+                self.assertEqual(a, b)
+                self.assertEqual(a, c)
+                self.assertNotEqual(a, full)
+                self.assertTrue(a.startswith("Usage: molq %s" % sub), a)
+                self.assertIn("Example", a)
+                self.assertRegex(a, r"(?m)^  molq %s " % sub)
+                for opt in ALL_OPTIONS:
+                    if opt in OPTIONS[sub]:
+                        self.assertRegex(a, r"(?m)^  %s\b" % re.escape(opt))
+                    else:
+                        self.assertNotIn(opt + " ", a)
+                flat = " ".join(a.split())
+                if sub in ("table", "spin"):
+                    for w in ("ideal-gas estimates", "applicable codes",
+                              "licensed engineer"):
+                        self.assertIn(w, flat)
+                self.assertTrue(all(len(l) <= 80 for l in a.splitlines()))
+                seen.add(a)
+        self.assertEqual(len(seen), len(SUBCOMMANDS))
+
+    def test_help_with_options_still_help(self):
+        # --help anywhere after the subcommand wins over other options.
+        a, _ = run_ok(self, "table", "N2", "--T", "300", "--help")
+        self.assertEqual(a, run_ok(self, "help", "table")[0])
+
+    def test_unknown(self):
+        rc, out, err = run("help", "tabel")
+        self.assertEqual(rc, 2)
+        self.assertEqual(out, "")
+        self.assertIn("'tabel'", err)
+        self.assertIn("'table'", err)
+        rc, out, err = run("help", "spni")
+        self.assertEqual(rc, 2)
+        self.assertIn("'spin'", err)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class SpinWithoutIsomerModel(unittest.TestCase):
+    """`molq spin` for a species with no spin-isomer model fails with a
+    message instead of printing 0."""
+
+    def test_water(self):
+        for fmt in ("text", "csv", "json"):
+            rc, out, err = run("spin", "H2O", "--format", fmt)
+            self.assertEqual(rc, 1, err)
+            self.assertEqual(out, "")
+            self.assertIn("H2O has no spin-isomer model in molq", err)
+
+    def test_others(self):
+        for name in ("CO2", "CH4", "C2H6", "Ar"):
+            rc, out, err = run("spin", name)
+            self.assertEqual(rc, 1, err)
+            self.assertIn("%s has no spin-isomer model in molq" % name, err)
+        # Diatomic level sums still work, 0 included for a heteronuclear one.
+        out, _ = run_ok(self, "spin", "H2", "CO", "--T", "20",
+                        "--format", "csv")
+        self.assertEqual(len(out.splitlines()), 3)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class ShortestNumbers(unittest.TestCase):
+    """json and csv numbers: the shortest decimal that reads back as the
+    same double."""
+
+    def test_molar_mass_json(self):
+        for args in (["table", "N2", "--T", "300"],
+                     ["spin", "N2", "--T", "300"], ["list"]):
+            out, _ = run_ok(self, *args, "--format", "json")
+            self.assertNotIn("28.013400000000001", out)
+            self.assertRegex(out, r'"molar_mass": 28\.0134\b')
+
+    def test_every_number(self):
+        for args in (["table", "N2", "CO2", "H2O", "--T", "298.15:1500:301"],
+                     ["modes", "N2", "C2H6", "--T", "300,700"],
+                     ["spin", "H2", "--T", "20,77.3"],
+                     ["table", "H2", "--compare", "rrho,levels", "--T",
+                      "1234.5", "--per-mass"],
+                     ["list"]):
+            with self.subTest(args=args):
+                js, _ = run_ok(self, *args, "--format", "json")
+                toks = NUMBER.findall(js)
+                self.assertGreaterEqual(len(toks), 5)
+                for t in toks:
+                    assert_shortest(self, t)
+                cs, _ = run_ok(self, *args, "--format", "csv")
+                n = 0
+                for row in list(csv.reader(io.StringIO(cs)))[1:]:
+                    for f in row:
+                        if NUMBER.fullmatch(f):
+                            assert_shortest(self, f)
+                            n += 1
+                self.assertGreaterEqual(n, 4)
+
+    def test_csv_equals_json_exactly(self):
+        args = ["table", "N2", "CO2", "--T", "200,298.15,1000,2500"]
+        rows = list(csv.DictReader(io.StringIO(
+            run_ok(self, *args, "--format", "csv")[0])))
+        doc = json.loads(run_ok(self, *args, "--format", "json")[0])
+        i = 0
+        for sp in doc["species"]:
+            for r in sp["rows"]:
+                for c in ["T"] + COLUMNS:
+                    self.assertEqual(float(rows[i][c]), r[c],
+                                     "%s %s" % (sp["name"], c))
+                i += 1
+        self.assertEqual(i, len(rows))
+
+    def test_text_unchanged(self):
+        # Text output keeps its 7-8 significant digits.
+        out, _ = run_ok(self, "table", "N2", "--T", "300")
+        self.assertIn("28.0134 g/mol", out)
+        row = [l for l in out.splitlines() if l.split()[:1] == ["300"]][0]
+        self.assertTrue(all(digits(f) <= 8 for f in row.split()), row)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class FileNamedOnce(unittest.TestCase):
+    """An unreadable species file is named once in the message."""
+
+    def test_missing_file(self):
+        path = str(DATA / "no-such-file.json")
+        for args in (["table", "N2", "--data", path], ["list", "--data", path]):
+            rc, out, err = run(*args)
+            self.assertEqual(rc, 1)
+            self.assertEqual(out, "")
+            self.assertEqual(err.count(path), 1, err)
+            self.assertIn("cannot open", err)
+
+    def test_bad_files_named_once(self):
+        for f in sorted(BAD.glob("*.json")):
+            with self.subTest(file=f.name):
+                rc, _, err = run("list", "--data", f)
+                self.assertEqual(rc, 1)
+                first = err.splitlines()[0]
+                self.assertEqual(first.count(str(f)), 1, first)
+                self.assertEqual(first.count("species file"), 1, first)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class WarningsAndOverrides(unittest.TestCase):
+    """A file that loads with warnings gets them on stderr, once each and
+    naming the file; a file species that shadows a built-in one is noted;
+    the results still follow on stdout."""
+
+    def test_warnings_on_stderr(self):
+        # N2 with 30 g/mol against its formula's 28.014 (standard atomic
+        # weight of N 14.007, IUPAC, from memory) and no schema_version
+        text = ('{"species": [{"name": "N2", "formula": "N2", "molar_mass": '
+                '30, "structure": "linear", "rotational_constants": [2.0], '
+                '"vibrations": [{"wavenumber": 2300}]}]}')
+        with tempfile.TemporaryDirectory() as d:
+            path = os.path.join(d, "mine.json")
+            with open(path, "w") as f:
+                f.write(text)
+            out, err = run_ok(self, "table", "N2", "--data", path, "--T",
+                              "300", "--format", "csv")
+        self.assertTrue(out.startswith("species,T,"), out)
+        lines = err.splitlines()
+        self.assertIn("molq: warning: %s: field 'schema_version': missing"
+                      % path, err)
+        self.assertIn("species 'N2': field 'molar_mass': 30 g/mol", err)
+        self.assertIn("molq: note: species 'N2' from %s overrides the "
+                      "built-in one" % path, err)
+        self.assertEqual(len(lines), 3, err)
+        self.assertNotIn("species file: field", err)
+
+    def test_clean_file_is_quiet(self):
+        _, err = run_ok(self, "list", "--data", DATA / "demo_species.json")
+        self.assertNotIn("warning", err)
+
+
+if __name__ == "__main__":
+    unittest.main()
