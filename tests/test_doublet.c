@@ -186,7 +186,8 @@ END_TEST
  * memory by the author of this test, unverified (NO 29.845, OH 29.886).
  * Tolerances: 0.05 J/(mol K) in cp and 0.03 in s are the targets of the
  * level sums (tests/test_levels.c).  Measured: OH s -0.004, cp +0.000; NO
- * s -0.027, cp +0.004.  NO's Be is derived from re = 1.15077 A (reference
+ * s -0.015, cp +0.016 (s -0.027, cp +0.004 before De was corrected to
+ * 5.4e-6).  NO's Be is derived from re = 1.15077 A (reference
  * section 4.5, from memory) and the atomic masses, 1.70493 cm^-1: the Be
  * 1.67195 listed beside it contradicts that re and gave s 0.14 high. */
 static const struct pub {
