@@ -29,10 +29,10 @@
 
 enum { EXIT_DATA = 1, EXIT_USAGE = 2 };
 enum { FMT_TEXT, FMT_CSV, FMT_JSON };
-enum { CMD_TABLE, CMD_MODES, CMD_LIST, CMD_SPIN, N_CMDS };
+enum { CMD_TABLE, CMD_MODES, CMD_LIST, CMD_SPIN, CMD_SHOW, N_CMDS };
 
 static const char *const cmd_name[N_CMDS] = {"table", "modes", "list",
-                                             "spin"};
+                                             "spin", "show"};
 
 /* The models of the library with the one line the help text gives each;
  * their names come from the library (molq_model_name), as in species
@@ -67,6 +67,7 @@ static const char help_head[] =
     "                        [--format text|csv|json] [--per-mass]\n"
     "                        [--model NAME]\n"
     "  molq list [--data FILE] [--format text|csv|json]\n"
+    "  molq show SPECIES... [--data FILE] [--format text|json]\n"
     "  molq help [COMMAND] | molq COMMAND --help | molq --help | molq --version\n"
     "\n"
     "Commands:\n"
@@ -88,6 +89,8 @@ static const char help_head[] =
     "  list    the species available: name, formula, structure, model,\n"
     "          molar mass, whether a formation enthalpy is given, and the\n"
     "          data source.\n"
+    "  show    everything molq knows of a species: composition, charge,\n"
+    "          ranges, modes, per-number sources, data-check warnings.\n"
     "\n"
     "Models (a species file chooses one per species with \"model\"):\n";
 
@@ -235,6 +238,20 @@ static const struct {
      "  # freshly liquefied hydrogen converts at 20 K, and at 77 K.\n"
      "  molq spin H2 --T 20,77 --per-mass\n",
      1},
+    /* CMD_SHOW */
+    {"molq show SPECIES... [--data FILE] [--format text|json]\n",
+     "What molq knows of each SPECIES (a name, or a formula such as CO2):\n"
+     "formula, element composition and charge, structure, model, molar mass\n"
+     "(g/mol), formation enthalpy, the lowest meaningful temperature\n"
+     "(t_min, K), the range checked against published tables\n"
+     "(validated_range, K), its modes, the data source with the source of\n"
+     "each number, and the warnings of the data checks (molar mass against\n"
+     "the formula, plausibility of the constants).\n",
+     NULL,
+     "  # Before feeding an invented kiln model: what is behind the built-in\n"
+     "  # water and nitric oxide?\n"
+     "  molq show H2O NO\n",
+     0},
 };
 
 /* The help line(s) of each option, as in opt_table's order (OPT_*). */
@@ -332,16 +349,17 @@ enum {
 #define FOR_MODES (1u << CMD_MODES)
 #define FOR_LIST (1u << CMD_LIST)
 #define FOR_SPIN (1u << CMD_SPIN)
+#define FOR_SHOW (1u << CMD_SHOW)
 
 static const struct {
     const char *name;
     int takes_value;
     unsigned commands; /* bit i set: accepted by command i */
 } opt_table[N_OPTS] = {
-    {"--data", 1, FOR_TABLE | FOR_MODES | FOR_LIST | FOR_SPIN},
+    {"--data", 1, FOR_TABLE | FOR_MODES | FOR_LIST | FOR_SPIN | FOR_SHOW},
     {"--T", 1, FOR_TABLE | FOR_MODES | FOR_SPIN},
     {"--p", 1, FOR_TABLE | FOR_MODES},
-    {"--format", 1, FOR_TABLE | FOR_MODES | FOR_LIST | FOR_SPIN},
+    {"--format", 1, FOR_TABLE | FOR_MODES | FOR_LIST | FOR_SPIN | FOR_SHOW},
     {"--per-mass", 0, FOR_TABLE | FOR_SPIN},
     {"--model", 1, FOR_TABLE | FOR_MODES | FOR_SPIN},
     {"--compare", 1, FOR_TABLE},
@@ -655,8 +673,9 @@ static void free_sets(sets *s)
     molq_db_free(s->builtin);
 }
 
-/* Look `name` up: --data file first, then the built-in set.  @return the
- * species (borrowed) or NULL after printing an error. */
+/* Look `name` up: --data file first, then the built-in set, by name, then
+ * by formula.  @return the species (borrowed) or NULL after printing an
+ * error. */
 static const molq_species *find_species(const sets *s, const char *name)
 {
     const molq_species *sp;
@@ -664,6 +683,11 @@ static const molq_species *find_species(const sets *s, const char *name)
     if (s->user != NULL && molq_db_find(s->user, name, &sp) == MOLQ_OK)
         return sp;
     if (molq_db_find(s->builtin, name, &sp) == MOLQ_OK)
+        return sp;
+    if (s->user != NULL &&
+        molq_db_find_formula(s->user, name, &sp) == MOLQ_OK)
+        return sp;
+    if (molq_db_find_formula(s->builtin, name, &sp) == MOLQ_OK)
         return sp;
     fprintf(stderr, "molq: unknown species '%s': looked in ", name);
     if (s->path != NULL)
@@ -1555,6 +1579,112 @@ static int cmd_list(const options *o, const sets *s)
     return rc;
 }
 
+/* molq show: one block (text) or object (json) per species. */
+static int cmd_show(const options *o, const molq_species *const *sp,
+                    size_t n)
+{
+    size_t i, k;
+    if (o->format == FMT_JSON) {
+        jctx j = {0};
+        json_t *root = jcheck(&j, json_object()), *list;
+        list = jcheck(&j, json_array());
+        jset(&j, root, "species", list);
+        for (i = 0; i < n && !j.failed; i++) {
+            json_t *x = jcheck(&j, json_object());
+            json_t *el = jcheck(&j, json_object());
+            json_t *modes = jcheck(&j, json_array());
+            json_t *warn = jcheck(&j, json_array());
+            double lo, hi;
+            jappend(&j, list, x);
+            jset(&j, x, "name", json_string(molq_species_name(sp[i])));
+            jset(&j, x, "formula", json_string(molq_species_formula(sp[i])));
+            for (k = 0; k < molq_species_element_count(sp[i]); k++) {
+                const char *sym;
+                long cnt;
+                if (molq_species_element(sp[i], k, &sym, &cnt) == MOLQ_OK)
+                    jset(&j, el, sym, json_integer(cnt));
+            }
+            jset(&j, x, "elements", el);
+            jset(&j, x, "charge", json_integer(molq_species_charge(sp[i])));
+            jset(&j, x, "structure", json_string(structure_of(sp[i])));
+            jset(&j, x, "model",
+                 json_string(model_name(molq_species_model(sp[i]))));
+            jset(&j, x, "molar_mass",
+                 json_real(molq_species_molar_mass_g_per_mol(sp[i])));
+            if (molq_species_has_formation_enthalpy(sp[i]) &&
+                molq_eval(sp[i], 298.15, MOLQ_P_STANDARD, MOLQ_H, &lo) ==
+                    MOLQ_OK) /* h(298.15 K) is dfH (molq.h) */
+                jset(&j, x, "formation_enthalpy_298", json_real(lo));
+            jset(&j, x, "t_min", json_real(molq_species_t_min(sp[i])));
+            if (molq_species_validated_range(sp[i], &lo, &hi) == MOLQ_OK) {
+                json_t *r = jcheck(&j, json_array());
+                jappend(&j, r, json_real(lo));
+                jappend(&j, r, json_real(hi));
+                jset(&j, x, "validated_range", r);
+            }
+            for (k = 0; k < molq_species_mode_count(sp[i]); k++) {
+                molq_mode_kind kind;
+                if (molq_species_mode_kind(sp[i], k, &kind) == MOLQ_OK)
+                    jappend(&j, modes, json_string(molq_mode_kind_name(kind)));
+            }
+            jset(&j, x, "modes", modes);
+            jset(&j, x, "source", json_string(molq_species_source(sp[i])));
+            for (k = 0; k < molq_species_warning_count(sp[i]); k++)
+                jappend(&j, warn, json_string(molq_species_warning(sp[i], k)));
+            jset(&j, x, "warnings", warn);
+        }
+        return json_finish(&j, root);
+    }
+    for (i = 0; i < n; i++) {
+        double lo, hi;
+        size_t nw = molq_species_warning_count(sp[i]);
+        printf("%s%s\n", i ? "\n" : "", molq_species_name(sp[i]));
+        printf("  formula           %s\n", molq_species_formula(sp[i]));
+        printf("  elements          ");
+        for (k = 0; k < molq_species_element_count(sp[i]); k++) {
+            const char *sym;
+            long cnt;
+            if (molq_species_element(sp[i], k, &sym, &cnt) == MOLQ_OK)
+                printf("%s%s %ld", k ? ", " : "", sym, cnt);
+        }
+        printf("%s\n", molq_species_element_count(sp[i]) ? "" : "(none)");
+        if (molq_species_charge(sp[i]) != 0)
+            printf("  charge            %+d\n", molq_species_charge(sp[i]));
+        else
+            printf("  charge            0\n");
+        printf("  structure         %s\n", structure_of(sp[i]));
+        printf("  model             %s\n",
+               model_name(molq_species_model(sp[i])));
+        printf("  molar mass        %.10g g/mol\n",
+               molq_species_molar_mass_g_per_mol(sp[i]));
+        if (molq_species_has_formation_enthalpy(sp[i]) &&
+            molq_eval(sp[i], 298.15, MOLQ_P_STANDARD, MOLQ_H, &lo) == MOLQ_OK)
+            printf("  dfH(298.15 K)     %.10g J/mol\n", lo); /* = h(298.15) */
+        else if (molq_species_has_formation_enthalpy(sp[i]))
+            printf("  dfH(298.15 K)     (given; 298.15 K is below t_min)\n");
+        else
+            printf("  dfH(298.15 K)     (none: h is H(T) - H(298.15 K))\n");
+        printf("  t_min             %.6g K\n", molq_species_t_min(sp[i]));
+        if (molq_species_validated_range(sp[i], &lo, &hi) == MOLQ_OK)
+            printf("  validated range   %g K to %g K\n", lo, hi);
+        else
+            printf("  validated range   (not stated by the data)\n");
+        printf("  modes             ");
+        for (k = 0; k < molq_species_mode_count(sp[i]); k++) {
+            molq_mode_kind kind;
+            if (molq_species_mode_kind(sp[i], k, &kind) == MOLQ_OK)
+                printf("%s%s", k ? ", " : "", molq_mode_kind_name(kind));
+        }
+        printf("\n  source            %s\n", molq_species_source(sp[i]));
+        if (nw == 0)
+            printf("  data checks       no warnings\n");
+        for (k = 0; k < nw; k++)
+            printf("  %s %s\n", k ? "                 " : "warning          ",
+                   molq_species_warning(sp[i], k));
+    }
+    return 0;
+}
+
 /* ------------------------------------------------------------------------ */
 /* main                                                                     */
 /* ------------------------------------------------------------------------ */
@@ -1655,7 +1785,7 @@ int main(int argc, char **argv)
             usage_error("unknown option '%s'%s", argv[1], "");
         else
             usage_error("unknown command '%s' (nearest: '%s'; use table, "
-                        "modes, spin, list or help)",
+                        "modes, spin, list, show or help)",
                         argv[1], nearest_command(argv[1]));
         return EXIT_USAGE;
     }
@@ -1714,7 +1844,9 @@ int main(int argc, char **argv)
             }
         }
     }
-    if (cmd == CMD_TABLE)
+    if (cmd == CMD_SHOW)
+        rc = cmd_show(&o, sp, o.nnames);
+    else if (cmd == CMD_TABLE)
         rc = cmd_table(&o, sp, asked, o.nnames, nm, o.ncompare > 0);
     else if (cmd == CMD_MODES)
         rc = cmd_modes(&o, sp, asked, o.nnames);

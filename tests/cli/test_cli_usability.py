@@ -340,5 +340,58 @@ class WarningsAndOverrides(unittest.TestCase):
         self.assertEqual(err, "")
 
 
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class ShowAndFormulaLookup(unittest.TestCase):
+    """molq show reports composition, charge, ranges, modes, source and the
+    data checks; species are found by formula as well as by name."""
+
+    def test_show_json(self):
+        out, _ = run_ok(self, "show", "CO2", "--format", "json")
+        doc = json.loads(out)["species"][0]
+        self.assertEqual(doc["name"], "CO2")
+        self.assertEqual(doc["elements"], {"C": 1, "O": 2})
+        self.assertEqual(doc["charge"], 0)
+        # dfH(CO2, 298.15 K) = -393.522 kJ/mol, NIST-JANAF 1998 (the
+        # built-in value; h(298.15 K) is dfH by molq's enthalpy scale)
+        self.assertAlmostEqual(doc["formation_enthalpy_298"], -393522.0,
+                               delta=0.5)
+        self.assertIn("translation", doc["modes"])
+        self.assertEqual(doc["warnings"], [])
+        self.assertIn("source", doc)
+
+    def test_show_text_and_warnings(self):
+        text = ('{"schema_version": 1, "species": [{"name": "odd", '
+                '"formula": "Ar", "molar_mass": 20, "structure": "atom"}]}')
+        with tempfile.TemporaryDirectory() as d:
+            path = os.path.join(d, "odd.json")
+            with open(path, "w") as f:
+                f.write(text)
+            out, _ = run_ok(self, "show", "odd", "--data", path)
+        self.assertIn("elements          Ar 1", out)
+        self.assertRegex(out, r"\n  warning +species 'odd': field "
+                              r"'molar_mass'")
+
+    def test_formula_lookup(self):
+        # a name that is not a formula, found through its formula
+        text = ('{"schema_version": 1, "species": [{"name": "calcium '
+                'vapour", "formula": "Ca", "structure": "atom"}]}')
+        with tempfile.TemporaryDirectory() as d:
+            path = os.path.join(d, "ca.json")
+            with open(path, "w") as f:
+                f.write(text)
+            out, _ = run_ok(self, "show", "Ca", "--data", path)
+            self.assertTrue(out.startswith("calcium vapour\n"), out)
+            a, _ = run_ok(self, "table", "Ca", "--data", path, "--T", "500",
+                          "--format", "csv")
+            b, _ = run_ok(self, "table", "calcium vapour", "--data", path,
+                          "--T", "500", "--format", "csv")
+            self.assertEqual(a, b)
+        self.assertEqual(run("show", "NoSuchThing")[0], 1)
+
+    def test_show_help(self):
+        out, _ = run_ok(self, "help", "show")
+        self.assertTrue(out.startswith("Usage: molq show"), out)
+
+
 if __name__ == "__main__":
     unittest.main()
