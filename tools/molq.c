@@ -1517,7 +1517,7 @@ static int cmd_list(const options *o, const sets *s)
             jset(&j, x, "model",
                  json_string(model_name(molq_species_model(e[i].sp))));
             jset(&j, x, "molar_mass",
-                 json_real(molq_species_molar_mass(e[i].sp) * 1e3));
+                 json_real(molq_species_molar_mass_g_per_mol(e[i].sp)));
             jset(&j, x, "has_formation_enthalpy",
                  json_boolean(molq_species_has_formation_enthalpy(e[i].sp)));
             jset(&j, x, "set", json_string(e[i].set));
@@ -1535,7 +1535,7 @@ static int cmd_list(const options *o, const sets *s)
             csv_field(molq_species_formula(e[i].sp));
             printf(",%s,%s,", structure_of(e[i].sp),
                    model_name(molq_species_model(e[i].sp)));
-            csv_number(molq_species_molar_mass(e[i].sp) * 1e3);
+            csv_number(molq_species_molar_mass_g_per_mol(e[i].sp));
             printf(",%s,", molq_species_has_formation_enthalpy(e[i].sp)
                                ? "yes"
                                : "no");
@@ -1569,7 +1569,7 @@ static int cmd_list(const options *o, const sets *s)
                molq_species_name(e[i].sp), (int)wf,
                molq_species_formula(e[i].sp), structure_of(e[i].sp), (int)wm,
                model_name(molq_species_model(e[i].sp)),
-               molq_species_molar_mass(e[i].sp) * 1e3,
+               molq_species_molar_mass_g_per_mol(e[i].sp),
                molq_species_has_formation_enthalpy(e[i].sp) ? "yes" : "no",
                (int)ws, e[i].set, molq_species_source(e[i].sp));
     if (s->path != NULL)

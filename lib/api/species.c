@@ -85,7 +85,7 @@ double molq_species_molar_mass(const molq_species *sp)
 
 double molq_species_molar_mass_g_per_mol(const molq_species *sp)
 {
-    return sp ? sp->molar_mass * 1e3 : 0.0;
+    return sp ? sp->molar_mass_g : 0.0;
 }
 
 int molq_species_has_formation_enthalpy(const molq_species *sp)

@@ -235,6 +235,7 @@ molq_status molq_spec_set_molar_mass_g_per_mol(molq_spec *s, double g_per_mol)
     if (s == NULL)
         return MOLQ_EARG;
     s->molar_mass = g_per_mol * 1e-3;
+    s->molar_mass_g = g_per_mol;
     s->has_molar_mass = 1;
     s->mass_in_g = 1;
     return MOLQ_OK;

@@ -67,6 +67,7 @@ struct molq_spec_s {
     double molar_mass; /* kg/mol */
     int has_molar_mass;
     int mass_in_g; /* set through the g/mol setter (messages use that unit) */
+    double molar_mass_g; /* the g/mol value as given (mass_in_g) */
     int structure; /* molq_structure, stored as int to validate */
     int sigma;
     double rot[3];

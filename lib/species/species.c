@@ -237,6 +237,11 @@ molq_status molq_species_build(const molq_spec *spec, double molar_mass,
         return MOLQ_ENOMEM;
     }
     sp->molar_mass = molar_mass;
+    /* report a g/mol mass exactly as given (39.948, not 39.94800000000001) */
+    sp->molar_mass_g = (spec->has_molar_mass && spec->mass_in_g &&
+                        spec->molar_mass == molar_mass)
+                           ? spec->molar_mass_g
+                           : molar_mass * 1e3;
     if (spec->formula == NULL ||
         molq_formula_parse(spec->formula, &sp->comp, NULL, 0) != MOLQ_OK)
         memset(&sp->comp, 0, sizeof sp->comp);

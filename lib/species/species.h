@@ -14,6 +14,7 @@ struct molq_species_s {
     char *formula;
     char *source;
     double molar_mass; /* kg/mol */
+    double molar_mass_g; /* g/mol: as given when given in g/mol (exact) */
     molq_structure structure;
     molq_rotor rotor;
     molq_model model;
