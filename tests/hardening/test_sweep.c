@@ -476,6 +476,11 @@ static double sweep_state(const subject *sj, double T, double p, double *vals,
         judge(sj, (molq_property)q, T, p, sts[q], v, s_at, 1);
         v = UNTOUCHED;
         st = molq_eval_per_mass(sj->sp, T, p, (molq_property)q, &v);
+        /* per kg a finite molar value can overflow (the electron gas:
+         * 1/M = 1.8e6 mol/kg), which MOLQ_OK may not return */
+        if (st == MOLQ_ERANGE && sts[q] == MOLQ_OK &&
+            !isfinite(vals[q] / molq_species_molar_mass(sj->sp)))
+            continue;
         ck_assert_msg(st == sts[q], "%s %s per mass at T=%g p=%g: %s, per "
                       "mole %s", sj->label, molq_property_name(q), T, p,
                       molq_status_string(st), molq_status_string(sts[q]));

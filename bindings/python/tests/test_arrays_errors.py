@@ -183,10 +183,12 @@ class FromConstantsVocabulary(unittest.TestCase):
                 ref = self.db[entry["name"]]
                 self.assertEqual((built.model, built.mode_kinds),
                                  (ref.model, ref.mode_kinds))
+                # above t_min (the electron gas starts at 295 K)
+                temps = [T for T in TEMPS if T >= ref.t_min]
                 for prop in ("cp", "h", "s", "lnq"):
                     self.assertEqual(
-                        [bits(v) for v in built.eval(prop, TEMPS)],
-                        [bits(v) for v in ref.eval(prop, TEMPS)], prop)
+                        [bits(v) for v in built.eval(prop, temps)],
+                        [bits(v) for v in ref.eval(prop, temps)], prop)
 
     def test_ethane_torsion(self):
         # Ethane with its hindered methyl rotor: S(298.15 K) = 229.16 +-
