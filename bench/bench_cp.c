@@ -631,6 +631,12 @@ int main(int argc, char **argv)
               "molq_eval_many(cp,h,s) differs from three molq_eval calls");
         for (i = 0; i < b->nvib; i++)
             hi += b->degeneracy[i];
+        /* level sums carry anharmonicity, centrifugal stretching and
+         * low electronic levels (NO's 2Pi3/2), which lift cp above the
+         * harmonic limit: JANAF's NO has cp = 4.54 R at 3000 K (common
+         * practice; NIST-JANAF 1998, from memory) */
+        if (b->model == MOLQ_MODEL_LEVELS)
+            hi += 0.25;
         for (i = 0; i < NT; i++) {
             double cpR = u->o_scalar[i] / R_GAS;
             if (u->o_many[3 * i] != u->o_scalar[i])
