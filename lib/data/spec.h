@@ -123,6 +123,11 @@ molq_spec *molq_spec_clone(const molq_spec *s);
  * level sums when diatomic states are given, else RRHO. */
 molq_model molq_spec_default_model(const molq_spec *s);
 
+/* Plausibility of a validated spec's diatomic constants (Kratzer De,
+ * Pekeris alpha_e, Birge-Sponer turnover against D0; data/plausible.c):
+ * findings are appended to `warn` (may be NULL).  MOLQ_ENOMEM only. */
+molq_status molq_spec_plausible(const molq_spec *s, molq_warnlist *warn);
+
 /* Check every field; on success *molar_mass receives the molar mass to use
  * (set, or computed from the formula), kg/mol.  Messages name the species
  * and the field with the key names of the species file.  Plausibility

@@ -502,5 +502,9 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
     if (s->has_formation_enthalpy && !isfinite(s->formation_enthalpy))
         FAIL(MOLQ_EVALUE, "species '%s': field 'formation_enthalpy_298': must "
              "be a finite number (J/mol)", nm);
+    if (molq_spec_plausible(s, warn) != MOLQ_OK) {
+        molq_errf(err, errlen, "species '%s': out of memory", nm);
+        return MOLQ_ENOMEM;
+    }
     return MOLQ_OK;
 }
