@@ -119,6 +119,48 @@ START_TEST(dunham_input)
 }
 END_TEST
 
+/* Be against re and the reduced mass: CO re 1.128323 Angstrom (Huber &
+ * Herzberg 1979, from memory) gives Be 1.9301 cm^-1 with standard atomic
+ * weights, 0.06 % from the Be given: quiet.  re 1.20 Angstrom (an invented
+ * slip) puts the geometric Be 11.6 % lower: warned.  A negative re is an
+ * error naming the field. */
+START_TEST(be_against_re)
+{
+    static const char fmt[] =
+        "{\"schema_version\": 1, \"species\": [{\"name\": \"COr\", "
+        "\"formula\": \"CO\", \"structure\": \"linear\", "
+        "\"dissociation_energy\": 89594, \"diatomic_states\": [{\"Te\": 0, "
+        "\"degeneracy\": 1, \"we\": 2169.81358, \"wexe\": 13.28831, "
+        "\"Be\": 1.93128087, \"alpha_e\": 0.01750441, \"De\": 6.1215e-6, "
+        "\"re\": %g}]}]}";
+    char js[1024], err[512];
+    molq_db *db = NULL;
+    const molq_species *sp;
+    snprintf(js, sizeof js, fmt, 1.128323);
+    sp = tu_from_json(js, &db);
+    ck_assert_msg(molq_species_warning_count(sp) == 0, "%s",
+                  molq_species_warning(sp, 0));
+    molq_db_free(db);
+    snprintf(js, sizeof js, fmt, 1.20);
+    sp = tu_from_json(js, &db);
+    ck_assert_uint_eq(molq_species_warning_count(sp), 1);
+    ck_assert_msg(strstr(molq_species_warning(sp, 0),
+                         "field 'diatomic_states[0].Be': 1.93128 cm^-1 "
+                         "differs by 13 % from h/(8 pi^2 c mu re^2) = 1.70") &&
+                      strstr(molq_species_warning(sp, 0),
+                             "expected within 2 %"),
+                  "%s", molq_species_warning(sp, 0));
+    molq_db_free(db);
+    snprintf(js, sizeof js, fmt, -1.0);
+    db = NULL;
+    ck_assert_int_eq(molq_db_read_string(js, strlen(js), &db, err, sizeof err),
+                     MOLQ_EVALUE);
+    ck_assert_msg(strstr(err, "field 'diatomic_states[0].re': must be"), "%s",
+                  err);
+    ck_assert_ptr_null(db);
+}
+END_TEST
+
 /* The built-in set passes every check except NO's De: stored as 5.4e-7
  * cm^-1, a tenth of its Kratzer estimate (Huber & Herzberg 1979 give
  * De 0.54e-6 from memory, likely a misrecalled 5.4e-6; the Kratzer value from the set's own we and Be
@@ -155,6 +197,7 @@ int main(void)
     tcase_add_test(tc, pekeris_flags_alpha);
     tcase_add_test(tc, turnover_flags_d0);
     tcase_add_test(tc, dunham_input);
+    tcase_add_test(tc, be_against_re);
     tcase_add_test(tc, builtin_set);
     suite_add_tcase(s, tc);
     return tu_run(s);

@@ -19,10 +19,19 @@
  *     from memory).  Band 0.7-1.8: Birge-Sponer extrapolation is known to
  *     overestimate by up to about 50 %.
  *
+ *  4. Be = h / (8 pi^2 c mu re^2) when a state gives "re" (Angstrom), mu
+ *     the reduced mass of the formula's two atoms from standard atomic
+ *     weights: an isotope mixture, not the main isotopologue, so about
+ *     0.1 % off for the molecules of the set (e.g. 14N/15N, 16O/18O at
+ *     natural abundance; for Cl2 about 0.5 %), and re itself differs from
+ *     the value implied by Be by the Born-Oppenheimer breakdown (< 0.1 %
+ *     except for hydrides).  Band 2 %.
+ *
  * The Dunham coefficients carry the signs of the expansion: Y10 = we,
  * Y20 = -wexe, Y01 = Be, Y11 = -alpha_e, Y02 = -De. */
 #include <math.h>
 
+#include "core/constants.h"
 #include "data/spec.h"
 
 #define KRATZER_LO 0.8
@@ -31,6 +40,28 @@
 #define PEKERIS_HI 1.7
 #define TURNOVER_LO 0.7
 #define TURNOVER_HI 1.8
+#define BE_RE_TOL 0.02
+
+/* Reduced mass (kg/mol) of a formula of exactly two atoms; 0 otherwise. */
+static double reduced_mass(const char *formula)
+{
+    molq_composition c;
+    double ma, mb;
+    const char *a, *b;
+    if (formula == NULL || molq_formula_parse(formula, &c, NULL, 0) != MOLQ_OK)
+        return 0.0;
+    if (c.n == 1 && c.el[0].count == 2)
+        a = b = c.el[0].symbol;
+    else if (c.n == 2 && c.el[0].count == 1 && c.el[1].count == 1) {
+        a = c.el[0].symbol;
+        b = c.el[1].symbol;
+    } else
+        return 0.0;
+    if (molq_formula_molar_mass(a, &ma, NULL, 0) != MOLQ_OK ||
+        molq_formula_molar_mass(b, &mb, NULL, 0) != MOLQ_OK)
+        return 0.0;
+    return ma * mb / (ma + mb);
+}
 
 static int outside(double r, double lo, double hi)
 {
@@ -70,6 +101,24 @@ molq_status molq_spec_plausible(const molq_spec *s, molq_warnlist *warn)
                                 "Be^3)/we - 6 Be^2/we = %.4g cm^-1 (expected "
                                 "within %g-%g)", nm, i, alpha, r, p,
                                 PEKERIS_LO, PEKERIS_HI)) != MOLQ_OK)
+                return rc;
+        }
+        if (st->has_re && be > 0.0 && reduced_mass(s->formula) > 0.0) {
+            double mu = reduced_mass(s->formula) / MOLQ_N_AVOGADRO; /* kg */
+            double re_m = st->re * 1e-10;
+            /* h / (8 pi^2 c mu re^2) in m^-1, then cm^-1 */
+            double bre = MOLQ_H_PLANCK /
+                         (8.0 * MOLQ_PI * MOLQ_PI * MOLQ_C_LIGHT * mu * re_m *
+                          re_m) / 100.0;
+            if (fabs(be - bre) > BE_RE_TOL * bre &&
+                (rc = molq_warn(warn, "species '%s': field "
+                                "'diatomic_states[%zu].Be': %.6g cm^-1 differs "
+                                "by %.2g %% from h/(8 pi^2 c mu re^2) = %.6g "
+                                "cm^-1 with re %g Angstrom and the reduced "
+                                "mass of formula '%s' (expected within %g %%)",
+                                nm, i, be, 100.0 * fabs(be - bre) / bre, bre,
+                                st->re, s->formula, 100.0 * BE_RE_TOL)) !=
+                    MOLQ_OK)
                 return rc;
         }
         if (st->te == 0.0 && s->has_d0 && s->d0 > 0.0 && we > 0.0 &&
