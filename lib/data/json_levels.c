@@ -123,7 +123,7 @@ static const struct {
 static const char *const state_keys[] = {
     "label", "Te", "degeneracy", "rotational_weights", "dunham", "we", "wexe",
     "weye", "weze", "Be", "alpha_e", "gamma_e", "De", "beta_e", "He",
-    "spin_orbit", NULL};
+    "spin_orbit", "re", NULL};
 
 static molq_status read_dunham(molq_json_ctx *c, molq_spec *s, size_t idx, json_t *m,
                                const char *field)
@@ -211,6 +211,13 @@ static molq_status read_state(molq_json_ctx *c, molq_spec *s, json_t *e, size_t 
         if ((st = molq_json_number(c, v, name, &x)) != MOLQ_OK)
             return st;
         molq_spec_set_spin_orbit(s, idx, x);
+    }
+    if ((v = json_object_get(e, "re")) != NULL) {
+        snprintf(name, sizeof name, "%sre", where);
+        if ((st = molq_json_number(c, v, name, &x)) != MOLQ_OK)
+            return st;
+        s->states[idx].re = x;
+        s->states[idx].has_re = 1;
     }
     if ((v = json_object_get(e, "label")) != NULL) {
         const char *text;

@@ -39,6 +39,9 @@ typedef struct molq_spec_state {
     int has_weights;
     double spin_orbit; /* A, cm^-1: a 2Pi state when has_spin_orbit */
     int has_spin_orbit;
+    double re; /* equilibrium internuclear distance, Angstrom (plausibility
+                * check of Be only) */
+    int has_re;
 } molq_spec_state;
 
 /* One hindered internal rotor. */
@@ -123,6 +126,12 @@ molq_spec *molq_spec_clone(const molq_spec *s);
 /* The model a validated spec builds by default: its "model" if set, else
  * level sums when diatomic states are given, else RRHO. */
 molq_model molq_spec_default_model(const molq_spec *s);
+
+/* Plausibility of a validated spec's diatomic constants (Kratzer De,
+ * Pekeris alpha_e, Birge-Sponer turnover against D0, Be against re and the
+ * formula's reduced mass; data/plausible.c):
+ * findings are appended to `warn` (may be NULL).  MOLQ_ENOMEM only. */
+molq_status molq_spec_plausible(const molq_spec *s, molq_warnlist *warn);
 
 /* Check every field; on success *molar_mass receives the molar mass to use
  * (set, or computed from the formula), kg/mol.  Messages name the species

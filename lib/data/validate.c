@@ -87,6 +87,10 @@ static molq_status validate_states(const molq_spec *s, char *err,
             FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
                  "rotational_weights': must be two finite numbers >= 0, not "
                  "both 0 (got %g, %g)", nm, i, d->w_even, d->w_odd);
+        if (d->has_re && !(isfinite(d->re) && d->re > 0.0 && d->re <= 100.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu].re': "
+                 "must be a finite number > 0 and at most 100 Angstrom (got "
+                 "%g)", nm, i, d->re);
         if (d->has_spin_orbit) {
             if (!isfinite(d->spin_orbit) || fabs(d->spin_orbit) > MAX_SPIN_ORBIT)
                 FAIL(MOLQ_EVALUE, "species '%s': field 'diatomic_states[%zu]."
@@ -502,5 +506,9 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
     if (s->has_formation_enthalpy && !isfinite(s->formation_enthalpy))
         FAIL(MOLQ_EVALUE, "species '%s': field 'formation_enthalpy_298': must "
              "be a finite number (J/mol)", nm);
+    if (molq_spec_plausible(s, warn) != MOLQ_OK) {
+        molq_errf(err, errlen, "species '%s': out of memory", nm);
+        return MOLQ_ENOMEM;
+    }
     return MOLQ_OK;
 }
