@@ -646,6 +646,16 @@ MOLQ_API double molq_species_t_min(const molq_species *species);
  * from the one its formula gives, or a mass lighter than any atom (a kg/mol
  * value passed where g/mol is meant).  Each is one English line naming the
  * species and the field, e.g. "species 'Ar': field 'molar_mass': ...".
+ * Diatomic constants are also checked for plausibility, each finding naming
+ * the field and the expected size: De against the Kratzer estimate
+ * 4 Be^3/we^2 (ratio 0.8-1.25), alpha_e against the Pekeris estimate
+ * 6 sqrt(wexe Be^3)/we - 6 Be^2/we (0.6-1.7), the ground state's
+ * we^2/(4 wexe) against dissociation_energy + G(0) (0.7-1.8), Be against
+ * h/(8 pi^2 c mu re^2) when the state gives re (2 %), and, for a species
+ * read from a file that holds its two atoms with formation enthalpies, the
+ * dissociation energy against the formation enthalpies (1 % or 1 kJ/mol;
+ * this one is added when the database is read, so a species made alone
+ * with molq_species_create does not get it).
  * They are fixed when the species is made (molq_species_with_model keeps
  * the original's) and never change afterwards.
  * @return the number of warnings (0 for a NULL species).  Thread-safe.
