@@ -85,11 +85,8 @@ class BadSpeciesText(unittest.TestCase):
         self.assertIn("'schema_version': missing", db.warnings[0])
         self.assertIn("species 'Qc': field 'molar_mass'", db.warnings[1])
         self.assertEqual(db["Qc"].warnings, (db.warnings[1],))
-        # the built-in set is quiet except NO's De, flagged by the Kratzer
-        # plausibility check until its data fix lands (then expect ())
-        self.assertTrue(all("species 'NO': field 'diatomic_states[0].De'"
-                            in w for w in molq.Database.builtin().warnings))
-        self.assertLessEqual(len(molq.Database.builtin().warnings), 1)
+        # the built-in set loads without warnings (NO's De is fixed)
+        self.assertEqual(molq.Database.builtin().warnings, ())
         self.assertEqual(molq.Database.builtin()["N2"].warnings, ())
 
     def test_good_text_reads(self):
