@@ -20,26 +20,16 @@
 
 #include "testutil.h"
 
-/* Ar against every JANAF row, 100 K to 6000 K.  cp = 5/2 R to the last
+/* Ar against every JANAF row, 100 K to 6000 K (in monatomic_every_row
+ * below), and against CODATA at 298.15 K here.  cp = 5/2 R to the last
  * published digit; s within 2 units of the last digit: molq sits a constant
  * +0.0012 J/(mol K) above JANAF at every T (the CODATA 1989 value at
  * 298.15 K, 154.846, agrees with molq to 0.0005), which points at the
  * constants of the time JANAF was computed with; h - h298 within 1.5 units
  * of the last digit (0.001 kJ/mol) for rounding of both columns. */
-START_TEST(argon_every_row)
+START_TEST(argon_codata)
 {
     const molq_species *ar = tu_species("Ar");
-    tu_table t;
-    size_t i;
-    tu_read_janaf("Ar", &t);
-    for (i = 0; i < t.n; i++) {
-        double T = t.T[i];
-        ck_assert_double_eq_tol(tu_eval(ar, T, 1e5, MOLQ_CP), t.cp[i], 0.0005);
-        ck_assert_double_eq_tol(tu_eval(ar, T, 1e5, MOLQ_S), t.s[i], 0.002);
-        ck_assert_double_eq_tol(tu_eval(ar, T, 1e5, MOLQ_GEF), t.gef[i], 0.002);
-        ck_assert_double_eq_tol(tu_eval(ar, T, 1e5, MOLQ_H_MINUS_H298),
-                                t.dh[i], 1.5);
-    }
     /* [CODATA] S(298.15) = 154.846 +/- 0.003 J/(mol K) (verified value). */
     ck_assert_double_eq_tol(tu_eval(ar, 298.15, 1e5, MOLQ_S), 154.846, 0.003);
     /* [CODATA] H(298.15) - H(0) = 6.197 +/- 0.001 kJ/mol (verified value). */
@@ -48,27 +38,31 @@ START_TEST(argon_every_row)
 }
 END_TEST
 
-/* Monatomic gases with one ground level below 6000 K (noble gases, H
- * 2S1/2, the electron gas) against every row of their NIST-JANAF 1998
- * tables (He-001, Ne-001, Kr-001, Xe-001, H-001, D-020; extracts in
- * tests/data/janaf/): translation and a degeneracy only, so the
- * tolerances are those of argon above (rounding of the last published
- * digit and the constants JANAF was computed with; measured largest
- * deviations 0.0002 in cp, 0.0023 in s). */
-static const char *const monatomic[] = {"He", "Ne", "Kr", "Xe", "H", "e-"};
+/* The other monatomic gases with one ground level below 6000 K (noble
+ * gases, H 2S1/2, the electron gas) against every row of their NIST-JANAF
+ * 1998 tables (He-001, Ne-001, Kr-001, Xe-001, H-001, D-020; extracts in
+ * tests/data/janaf/), with argon's row tolerances above except s and gef:
+ * the same kind of constant offset reaches 0.0023 J/(mol K) for Ne, Xe
+ * and H (measured), so 0.003 there; cp to the last published digit. */
+static const struct {
+    const char *name;
+    double tol_s; /* J/(mol K), s and gef */
+} monatomic[] = {{"Ar", 0.002}, {"He", 0.003}, {"Ne", 0.003}, {"Kr", 0.003},
+                 {"Xe", 0.003}, {"H", 0.003},  {"e-", 0.003}};
 
 START_TEST(monatomic_every_row)
 {
-    const molq_species *sp = tu_species(monatomic[_i]);
+    const molq_species *sp = tu_species(monatomic[_i].name);
+    double tol = monatomic[_i].tol_s;
     tu_table t;
     size_t i;
-    tu_read_janaf(monatomic[_i], &t);
+    tu_read_janaf(monatomic[_i].name, &t);
     ck_assert_uint_gt(t.n, 10);
     for (i = 0; i < t.n; i++) {
         double T = t.T[i];
         ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_CP), t.cp[i], 0.0005);
-        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_S), t.s[i], 0.003);
-        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_GEF), t.gef[i], 0.003);
+        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_S), t.s[i], tol);
+        ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_GEF), t.gef[i], tol);
         ck_assert_double_eq_tol(tu_eval(sp, T, 1e5, MOLQ_H_MINUS_H298),
                                 t.dh[i], 1.5);
     }
@@ -204,7 +198,7 @@ int main(void)
 {
     Suite *s = suite_create("tables");
     TCase *tc = tcase_create("published");
-    tcase_add_test(tc, argon_every_row);
+    tcase_add_test(tc, argon_codata);
     tcase_add_test(tc, fine_structure_atoms);
     tcase_add_loop_test(tc, monatomic_every_row, 0,
                         sizeof monatomic / sizeof monatomic[0]);

@@ -313,18 +313,26 @@ const molq_species *molq_db_species(const molq_db *db, size_t index)
     return (db != NULL && index < db->n) ? db->sp[index] : NULL;
 }
 
-molq_status molq_db_find(const molq_db *db, const char *name,
-                         const molq_species **out)
+/* The first species whose name (by_formula 0) or formula (1) is `key`. */
+static molq_status find_by(const molq_db *db, const char *key, int by_formula,
+                           const molq_species **out)
 {
     size_t i;
-    if (db == NULL || name == NULL || out == NULL)
+    if (db == NULL || key == NULL || out == NULL)
         return MOLQ_EARG;
     for (i = 0; i < db->n; i++)
-        if (strcmp(db->sp[i]->name, name) == 0) {
+        if (strcmp(by_formula ? db->sp[i]->formula : db->sp[i]->name, key) ==
+            0) {
             *out = db->sp[i];
             return MOLQ_OK;
         }
     return MOLQ_ENOTFOUND;
+}
+
+molq_status molq_db_find(const molq_db *db, const char *name,
+                         const molq_species **out)
+{
+    return find_by(db, name, 0, out);
 }
 
 size_t molq_db_warning_count(const molq_db *db)
@@ -340,13 +348,5 @@ const char *molq_db_warning(const molq_db *db, size_t index)
 molq_status molq_db_find_formula(const molq_db *db, const char *formula,
                                  const molq_species **out)
 {
-    size_t i;
-    if (db == NULL || formula == NULL || out == NULL)
-        return MOLQ_EARG;
-    for (i = 0; i < db->n; i++)
-        if (strcmp(db->sp[i]->formula, formula) == 0) {
-            *out = db->sp[i];
-            return MOLQ_OK;
-        }
-    return MOLQ_ENOTFOUND;
+    return find_by(db, formula, 1, out);
 }

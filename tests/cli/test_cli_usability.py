@@ -16,6 +16,7 @@ expected values are named beside each check:
 * tests/cli/data files are INVENTED test data.
 """
 
+import contextlib
 import csv
 import io
 import json
@@ -31,7 +32,7 @@ DATA = Path(__file__).resolve().parent / "data"
 LEVELS = DATA / "demo_levels.json"
 BAD = DATA / "bad"
 COLUMNS = ["cp", "cv", "h", "s", "g", "h_minus_h298", "gef", "dcp_dT"]
-SUBCOMMANDS = ["table", "modes", "spin", "list"]
+SUBCOMMANDS = ["table", "modes", "spin", "list", "show"]
 # Options each subcommand accepts (molq.c opt_table).
 OPTIONS = {
     "table": ["--data", "--T", "--p", "--format", "--per-mass", "--model",
@@ -39,6 +40,7 @@ OPTIONS = {
     "modes": ["--data", "--T", "--p", "--format", "--model"],
     "spin": ["--data", "--T", "--format", "--per-mass", "--model"],
     "list": ["--data", "--format"],
+    "show": ["--data", "--format"],
 }
 ALL_OPTIONS = OPTIONS["table"]
 NUMBER = re.compile(r"(?<![\w.\"])-?\d+(?:\.\d+)?(?:[eE][-+]?\d+)?(?![\w\"])")
@@ -54,6 +56,16 @@ def run_ok(tc, *args):
     rc, out, err = run(*args)
     tc.assertEqual(rc, 0, "molq %s failed: %s" % (args, err))
     return out, err
+
+
+@contextlib.contextmanager
+def species_file(text):
+    """The path of a temporary species file holding `text`."""
+    with tempfile.TemporaryDirectory() as d:
+        path = os.path.join(d, "species.json")
+        with open(path, "w") as f:
+            f.write(text)
+        yield path
 
 
 def digits(token):
@@ -317,10 +329,7 @@ class WarningsAndOverrides(unittest.TestCase):
         text = ('{"species": [{"name": "N2", "formula": "N2", "molar_mass": '
                 '30, "structure": "linear", "rotational_constants": [2.0], '
                 '"vibrations": [{"wavenumber": 2300}]}]}')
-        with tempfile.TemporaryDirectory() as d:
-            path = os.path.join(d, "mine.json")
-            with open(path, "w") as f:
-                f.write(text)
+        with species_file(text) as path:
             out, err = run_ok(self, "table", "N2", "--data", path, "--T",
                               "300", "--format", "csv")
         self.assertTrue(out.startswith("species,T,"), out)
@@ -362,10 +371,7 @@ class ShowAndFormulaLookup(unittest.TestCase):
     def test_show_text_and_warnings(self):
         text = ('{"schema_version": 1, "species": [{"name": "odd", '
                 '"formula": "Ar", "molar_mass": 20, "structure": "atom"}]}')
-        with tempfile.TemporaryDirectory() as d:
-            path = os.path.join(d, "odd.json")
-            with open(path, "w") as f:
-                f.write(text)
+        with species_file(text) as path:
             out, _ = run_ok(self, "show", "odd", "--data", path)
         self.assertIn("elements          Ar 1", out)
         self.assertRegex(out, r"\n  warning +species 'odd': field "
@@ -375,10 +381,7 @@ class ShowAndFormulaLookup(unittest.TestCase):
         # a name that is not a formula, found through its formula
         text = ('{"schema_version": 1, "species": [{"name": "calcium '
                 'vapour", "formula": "Ca", "structure": "atom"}]}')
-        with tempfile.TemporaryDirectory() as d:
-            path = os.path.join(d, "ca.json")
-            with open(path, "w") as f:
-                f.write(text)
+        with species_file(text) as path:
             out, _ = run_ok(self, "show", "Ca", "--data", path)
             self.assertTrue(out.startswith("calcium vapour\n"), out)
             a, _ = run_ok(self, "table", "Ca", "--data", path, "--T", "500",

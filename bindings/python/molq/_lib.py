@@ -176,23 +176,13 @@ _PROTOTYPES = [
                                     _c.POINTER(_c.c_long)]),
     ("molq_species_validated_range", _int, [_ptr, _c.POINTER(_c.c_double),
                                             _c.POINTER(_c.c_double)]),
+    ("molq_species_warning_count", _size, [_ptr]),
+    ("molq_species_warning", _str, [_ptr, _size]),
+    ("molq_db_warning_count", _size, [_ptr]),
+    ("molq_db_warning", _str, [_ptr, _size]),
 ]
 
 for _name, _res, _args in _PROTOTYPES:
-    try:
-        _fn = getattr(lib, _name)
-    except AttributeError as _exc:
-        raise ImportError("molq: the loaded library %s lacks %s(); it is too "
-                          "old or not libmolq" % (lib._name, _name)) from _exc
-    _fn.restype = _res
-    _fn.argtypes = _args
-
-# The warning lists of species and databases.
-for _name, _res, _args in [
-        ("molq_species_warning_count", _size, [_ptr]),
-        ("molq_species_warning", _str, [_ptr, _size]),
-        ("molq_db_warning_count", _size, [_ptr]),
-        ("molq_db_warning", _str, [_ptr, _size])]:
     try:
         _fn = getattr(lib, _name)
     except AttributeError as _exc:
