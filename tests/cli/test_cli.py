@@ -57,7 +57,8 @@ BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "H2", "N2", "O2", 
            "Cl2", "F2", "SO", "CN", "CH", "NH", "e-", "CO2", "H2O",
            "C2H6", "NH3", "CH4",
            "N2O",
-           "NO2"]
+           "NO2",
+           "SO2"]
 CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
            "design of pressure equipment, burners or safety systems without "
            "verification under the applicable codes and licensed engineering "
