@@ -58,7 +58,8 @@ BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "H2", "N2", "O2", 
            "C2H6", "NH3", "CH4",
            "N2O",
            "NO2",
-           "SO2"]
+           "SO2",
+           "HCN"]
 CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
            "design of pressure equipment, burners or safety systems without "
            "verification under the applicable codes and licensed engineering "
