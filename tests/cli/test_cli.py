@@ -61,7 +61,8 @@ BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "H2", "N2", "O2", 
            "SO2",
            "HCN",
            "O3",
-           "COS"]
+           "COS",
+           "CS2"]
 CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
            "design of pressure equipment, burners or safety systems without "
            "verification under the applicable codes and licensed engineering "
