@@ -65,7 +65,8 @@ BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "H2", "N2", "O2", 
            "CS2",
            "H2S",
            "HO2",
-           "NH2"]
+           "NH2",
+           "HNO"]
 CAUTION = ("molq gives ideal-gas estimates. They are not a basis for the "
            "design of pressure equipment, burners or safety systems without "
            "verification under the applicable codes and licensed engineering "
