@@ -55,7 +55,7 @@ MODELS = ["rrho", "levels"]
 DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
 BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "C", "F", "S", "H2", "N2", "O2", "CO", "NO", "OH", "HF", "HCl",
            "Cl2", "F2", "SO", "CN", "CH", "NH", "e-", "CO2", "H2O",
-           "C2H6", "NH3", "CH4",
+           "C2H6", "NH3", "CH4", "H2O2", "CH3", "CH2O", "C2H2", "C2H4",
            "N2O",
            "NO2",
            "SO2",
