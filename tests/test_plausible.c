@@ -218,6 +218,65 @@ START_TEST(d0_against_enthalpies)
 }
 END_TEST
 
+/* D0 of an ion against the formation enthalpies.  NO+ has two limits, N + O+
+ * and N+ + O; the lower (N + O+, by the difference of the atoms' ionisation
+ * energies, 0.92 eV) bounds the ground state's levels.  Formation enthalpies
+ * on NIST-JANAF 1998's ion convention (the electron gas a reference
+ * element): N+ 1882.130, O+ 1568.786, NO+ 990.185 kJ/mol (verified: the
+ * JANAF extracts in tests/data/janaf/); N and O as above; NO+ X 1Sigma+
+ * we 2376.42, wexe 16.262, Be 1.99727, alpha_e 0.01889, De 5.64e-6 cm^-1
+ * (Huber & Herzberg 1979, from memory).  They give D0 = 1047.4 kJ/mol =
+ * 87556 cm^-1 (Huber & Herzberg: 10.85 eV = 87510 cm^-1, from memory);
+ * the N+ + O limit, 95050 cm^-1, typed for it is warned and the message
+ * names the lower limit's atoms.  Before the ion check every charged
+ * diatomic was skipped, so the slip passed unnoticed (this test failed
+ * there).  With only the neutral atoms in the file nothing is checked. */
+static const char d0_ion_fmt[] =
+    "{\"schema_version\": 1, \"species\": [%s"
+    "{\"name\": \"NOp\", \"formula\": \"NO+\", \"structure\": \"linear\", "
+    "\"formation_enthalpy_298\": 990185, \"dissociation_energy\": %g, "
+    "\"diatomic_states\": [{\"Te\": 0, \"degeneracy\": 1, \"we\": 2376.42, "
+    "\"wexe\": 16.262, \"Be\": 1.99727, \"alpha_e\": 0.01889, "
+    "\"De\": 5.64e-6}]}]}";
+static const char d0_ions[] =
+    "{\"name\": \"N+\", \"formula\": \"N+\", \"structure\": \"atom\", "
+    "\"formation_enthalpy_298\": 1882130, \"electronic_levels\": "
+    "[{\"energy\": 0, \"degeneracy\": 1}, {\"energy\": 48.67, "
+    "\"degeneracy\": 3}, {\"energy\": 130.8, \"degeneracy\": 5}]}, "
+    "{\"name\": \"O+\", \"formula\": \"O+\", \"structure\": \"atom\", "
+    "\"formation_enthalpy_298\": 1568786, \"electronic_levels\": "
+    "[{\"energy\": 0, \"degeneracy\": 4}]}, ";
+
+START_TEST(d0_ion_against_enthalpies)
+{
+    char atoms[2048], js[4096];
+    molq_db *db = NULL;
+    const molq_species *ion;
+    snprintf(atoms, sizeof atoms, "%s%s", d0_atoms, d0_ions);
+    snprintf(js, sizeof js, d0_ion_fmt, atoms, 87556.0);
+    tu_from_json(js, &db);
+    ck_assert_msg(molq_db_warning_count(db) == 0, "%s",
+                  molq_db_warning(db, 0));
+    molq_db_free(db);
+    snprintf(js, sizeof js, d0_ion_fmt, atoms, 95050.0);
+    tu_from_json(js, &db);
+    ck_assert_int_eq(molq_db_find(db, "NOp", &ion), MOLQ_OK);
+    ck_assert_uint_eq(molq_species_warning_count(ion), 1);
+    ck_assert_msg(strstr(molq_species_warning(ion, 0),
+                         "species 'NOp': field 'dissociation_energy': "
+                         "95050 cm^-1") &&
+                      strstr(molq_species_warning(ion, 0),
+                             "'N', 'O+' and 'NOp'"),
+                  "%s", molq_species_warning(ion, 0));
+    molq_db_free(db);
+    /* neutral atoms only: the ion's limits are not in the file */
+    snprintf(js, sizeof js, d0_ion_fmt, d0_atoms, 95050.0);
+    tu_from_json(js, &db);
+    ck_assert_uint_eq(molq_db_warning_count(db), 0);
+    molq_db_free(db);
+}
+END_TEST
+
 /* The built-in set passes every check.  The proof on real data: the NO
  * entry carried De = 0.54e-6 cm^-1 until it was fixed, a tenth of its
  * Kratzer estimate 4 Be^3/we^2 = 5.47e-6 cm^-1 (we 1904.20, Be 1.70493,
@@ -267,6 +326,7 @@ int main(void)
     tcase_add_test(tc, dunham_input);
     tcase_add_test(tc, be_against_re);
     tcase_add_test(tc, d0_against_enthalpies);
+    tcase_add_test(tc, d0_ion_against_enthalpies);
     tcase_add_test(tc, builtin_set);
     suite_add_tcase(s, tc);
     return tu_run(s);

@@ -652,7 +652,8 @@ MOLQ_API double molq_species_t_min(const molq_species *species);
  * 6 sqrt(wexe Be^3)/we - 6 Be^2/we (0.6-1.7), the ground state's
  * we^2/(4 wexe) against dissociation_energy + G(0) (0.7-1.8), Be against
  * h/(8 pi^2 c mu re^2) when the state gives re (2 %), and, for a species
- * read from a file that holds its two atoms with formation enthalpies, the
+ * read from a file that holds its two atoms with formation enthalpies (for
+ * a singly charged ion the atoms of its lower limit, A+ + B or A + B+), the
  * dissociation energy against the formation enthalpies (1 % or 1 kJ/mol;
  * this one is added when the database is read, so a species made alone
  * with molq_species_create does not get it).

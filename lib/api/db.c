@@ -89,33 +89,66 @@ void molq_db_free(molq_db *db)
 }
 
 /* Dissociation energy against the formation enthalpies (a plausibility
- * warning, never an error).  For a neutral diatomic AB with
- * formation_enthalpy_298 and dissociation_energy, when the file also holds
- * the neutral atoms A and B (found by formula) with formation enthalpies,
- * the reaction AB -> A + B gives at 298.15 K
+ * warning, never an error).  For a diatomic AB with formation_enthalpy_298
+ * and dissociation_energy, when the file also holds the atoms A and B
+ * (found by formula) with formation enthalpies, the reaction AB -> A + B
+ * gives at 298.15 K
  *   D298 = dfH(A) + dfH(B) - dfH(AB)
  * and at 0 K, with each species' own H(298.15 K) - H(0),
  *   D0 = D298 - [(H298-H0)(A) + (H298-H0)(B) - (H298-H0)(AB)]
- * (common practice: Hess's law and Kirchhoff's relation).  Tolerance: 1 %
- * of D0 or 1 kJ/mol, whichever is larger.  Measured: the built-in N2, O2,
- * CO, NO, OH, H2 agree within 0.16 % (NO, 0.98 kJ/mol; the others within
- * 0.03 %) with N, O and JANAF 1998 C and H atoms; the tolerance is wider
- * than the spread of published formation enthalpies (NO: JANAF 90.29
- * against about 91.1 kJ/mol elsewhere) and narrower than the zero-point
- * energy of these molecules (1.2-10 % of D0), so a well depth De typed for
- * D0, or a wrong unit, is caught. */
+ * (common practice: Hess's law and Kirchhoff's relation).  A singly charged
+ * ion AB+ (or AB-) has two limits, A+ + B and A + B+, found by the formulas
+ * "A+" and "B+"; dissociation_energy bounds the ground state's levels, so
+ * it is compared with the lower of the limits the file holds (NO+:
+ * N + O+ lies 0.92 eV below N+ + O, the difference of the atoms'
+ * ionisation energies).  No electron appears in either reaction, so the
+ * ion convention of the formation enthalpies (NIST-JANAF: the electron gas
+ * a reference element) cancels.  Tolerance: 1 % of D0 or 1 kJ/mol,
+ * whichever is larger.  Measured: the built-in N2, O2, CO, NO, OH, H2
+ * agree within 0.16 % (NO, 0.98 kJ/mol; the others within 0.03 %) with N,
+ * O and JANAF 1998 C and H atoms; the tolerance is wider than the spread of
+ * published formation enthalpies (NO: JANAF 90.29 against about 91.1
+ * kJ/mol elsewhere) and narrower than the zero-point energy of these
+ * molecules (1.2-10 % of D0), so a well depth De typed for D0, or a wrong
+ * unit, is caught. */
 #define D0_REL_TOL 0.01
 #define D0_ABS_TOL 1000.0 /* J/mol */
 #define CM1_TO_J_PER_MOL (100.0 * MOLQ_H_PLANCK * MOLQ_C_LIGHT * MOLQ_N_AVOGADRO)
 
-static const molq_species *db_atom(const molq_db *db, const char *symbol)
+/* The atom of element `symbol` with the given charge (-1, 0, +1), by
+ * formula ("N", "N+", "N-"), with a formation enthalpy; NULL if absent. */
+static const molq_species *db_atom(const molq_db *db, const char *symbol,
+                                   int charge)
 {
     const molq_species *a;
-    if (molq_db_find_formula(db, symbol, &a) != MOLQ_OK ||
+    char f[16];
+    if (strlen(symbol) > 4)
+        return NULL;
+    snprintf(f, sizeof f, "%s%s", symbol,
+             charge > 0 ? "+" : charge < 0 ? "-" : "");
+    if (molq_db_find_formula(db, f, &a) != MOLQ_OK ||
         a->structure != MOLQ_ATOM || !a->has_formation_enthalpy ||
-        a->comp.charge != 0)
+        a->comp.charge != charge)
         return NULL;
     return a;
+}
+
+/* D0 (J/mol) of AB -> A(charge qa) + B(charge qb) from the formation
+ * enthalpies; 0 with *a, *b NULL when the file lacks an atom. */
+static double d0_limit(const molq_db *db, const molq_species *sp, int qa,
+                       int qb, const molq_species **a,
+                       const molq_species **b)
+{
+    const molq_composition *c = &sp->comp;
+    *a = db_atom(db, c->el[0].symbol, qa);
+    *b = db_atom(db, c->el[c->n - 1].symbol, qb);
+    if (*a == NULL || *b == NULL) {
+        *a = *b = NULL;
+        return 0.0;
+    }
+    return (*a)->formation_enthalpy + (*b)->formation_enthalpy -
+           sp->formation_enthalpy -
+           ((*a)->h298_minus_h0 + (*b)->h298_minus_h0 - sp->h298_minus_h0);
 }
 
 static molq_status check_d0(molq_db *db, char *err, size_t errlen)
@@ -124,21 +157,25 @@ static molq_status check_d0(molq_db *db, char *err, size_t errlen)
     for (i = 0; i < db->n; i++) {
         molq_species *sp = db->sp[i];
         const molq_composition *c = &sp->comp;
-        const molq_species *a, *b;
-        double d298, d0h, d0g, tol;
+        const molq_species *a = NULL, *b = NULL, *a2, *b2;
+        double d0h = 0.0, d2, d0g, tol;
         if (!sp->has_formation_enthalpy || !sp->spec->has_d0 ||
-            c->charge != 0 ||
+            c->charge < -1 || c->charge > 1 ||
             !((c->n == 1 && c->el[0].count == 2) ||
               (c->n == 2 && c->el[0].count == 1 && c->el[1].count == 1)))
             continue;
-        a = db_atom(db, c->el[0].symbol);
-        b = db_atom(db, c->el[c->n - 1].symbol);
+        /* neutral: A + B; ion: A(q) + B, then A + B(q), the lower wins */
+        d0h = d0_limit(db, sp, c->charge, 0, &a, &b);
+        if (c->charge != 0) {
+            d2 = d0_limit(db, sp, 0, c->charge, &a2, &b2);
+            if (a2 != NULL && (a == NULL || d2 < d0h)) {
+                d0h = d2;
+                a = a2;
+                b = b2;
+            }
+        }
         if (a == NULL || b == NULL)
             continue;
-        d298 = a->formation_enthalpy + b->formation_enthalpy -
-               sp->formation_enthalpy;
-        d0h = d298 - (a->h298_minus_h0 + b->h298_minus_h0 -
-                      sp->h298_minus_h0);
         d0g = sp->spec->d0 * CM1_TO_J_PER_MOL;
         tol = D0_REL_TOL * d0g > D0_ABS_TOL ? D0_REL_TOL * d0g : D0_ABS_TOL;
         if (fabs(d0h - d0g) > tol) {

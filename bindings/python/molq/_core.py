@@ -82,7 +82,7 @@ _NAMED_CONSTANTS = {
     "He": (0, 3, 1.0),
 }
 _STATE_KEYS = ("label", "Te", "degeneracy", "rotational_weights",
-               "dunham", "spin_orbit") + tuple(_NAMED_CONSTANTS)
+               "dunham", "spin_orbit", "re") + tuple(_NAMED_CONSTANTS)
 _DUNHAM_ROWS, _DUNHAM_COLS = 6, 4  # powers of (v + 1/2), of J(J+1)
 
 
@@ -624,7 +624,8 @@ class Species(_Immutable):
                 weights of even- and odd-J levels (H2: [0.25, 0.75]), and
                 ``"spin_orbit"``: A in cm^-1, which makes the state a 2Pi
                 state (Hill-Van Vleck levels, half-integer J; degeneracy
-                4).
+                4), and ``"re"``: the equilibrium distance in Angstrom,
+                used only to check Be (a warning when they disagree).
             dissociation_energy: D0 of the ground state from its lowest
                 level, cm^-1 (required by the levels model).
             spin_isomers: ``"equilibrium"`` (default) or ``"frozen"``: even-
@@ -1226,6 +1227,8 @@ class _Entry:
         if "spin_orbit" in state:
             out["spin_orbit"] = self.num(state["spin_orbit"],
                                          field + ".spin_orbit")
+        if "re" in state:
+            out["re"] = self.num(state["re"], field + ".re")
         return out
 
     def anharmonicity(self, anh):

@@ -190,6 +190,25 @@ class FromConstantsVocabulary(unittest.TestCase):
                         [bits(v) for v in built.eval(prop, temps)],
                         [bits(v) for v in ref.eval(prop, temps)], prop)
 
+    def test_state_re_reaches_library(self):
+        # "re" (Angstrom) is a species-file key of a diatomic state, used
+        # only to check Be = h/(8 pi^2 c mu re^2).  from_constants refused
+        # it ("unknown key 're'") until it was added to the state keys.
+        # N2 X state, Huber & Herzberg 1979 (from memory): Be 1.99824,
+        # re 1.09768 Angstrom; re 1.2 is 16 % off and must be warned.
+        state = {"Te": 0, "we": 2358.57, "wexe": 14.324, "Be": 1.99824,
+                 "alpha_e": 0.017318, "De": 5.76e-6}
+        kw = dict(structure="linear", symmetry_number=2,
+                  dissociation_energy=78714, formula="N2",
+                  molar_mass=None)
+        good = molq.Species.from_constants(
+            "N2x", diatomic_states=[dict(state, re=1.09768)], **kw)
+        self.assertEqual(good.warnings, ())
+        bad = molq.Species.from_constants(
+            "N2x", diatomic_states=[dict(state, re=1.2)], **kw)
+        self.assertEqual(len(bad.warnings), 1)
+        self.assertIn("'diatomic_states[0].Be'", bad.warnings[0])
+
     def test_ethane_torsion(self):
         # Ethane with its hindered methyl rotor: S(298.15 K) = 229.16 +-
         # 0.10 J/(mol K) (Gurvich et al., Thermodynamic Properties of
