@@ -1837,8 +1837,17 @@ static int cmd_show(const options *o, const molq_species *const *sp,
                 printf("%s%s", k ? ", " : "", molq_mode_kind_name(kind));
         }
         printf("\n  source            %s\n", molq_species_source(sp[i]));
+        /* The checks are the library's (molq.h, molq_species_warning_count);
+         * each finding is one warning naming the field. */
         if (nw == 0)
-            printf("  data checks       no warnings\n");
+            printf("  data checks       no warnings from the checks that apply "
+                   "(molar mass\n"
+                   "                    against the formula; for diatomic "
+                   "states the\n"
+                   "                    plausibility of De, alpha_e, "
+                   "we^2/(4 wexe), Be against\n"
+                   "                    re, D0 against the atoms' formation "
+                   "enthalpies)\n");
         for (k = 0; k < nw; k++)
             printf("  %s %s\n", k ? "                 " : "warning          ",
                    molq_species_warning(sp[i], k));
