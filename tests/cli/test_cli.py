@@ -667,6 +667,10 @@ BAD_ARGS = [
                                             "unknown format"]),
     (["table", "Qq"], 1, ["unknown species", "'Qq'", "built-in"]),
     (["table", "N2", "n2"], 1, ["unknown species", "'n2'"]),
+    # Regression: an empty word is no species and no formula (it used to
+    # find the file's first species without a formula, demo-bent).
+    (["show", "", "--data", DEMO], 1, ["unknown species", "''"]),
+    (["table", "", "--data", DEMO], 1, ["unknown species", "''"]),
     (["table", "demo-nothing", "--data", str(DEMO)], 1,
      ["unknown species", "'demo-nothing'", str(DEMO), "built-in"]),
     (["table", "N2", "--data", str(DATA / "no_such_file.json")], 1,
