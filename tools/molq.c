@@ -1523,7 +1523,8 @@ static int cmd_spin(const options *o, const molq_species **sp,
  * - the first clause of the source: the text before its first ';' that
  *   is outside parentheses and brackets (a ';' inside "(...)" does not
  *   end it);
- * - every run of white space and control characters becomes one space,
+ * - every run of ASCII white space and control characters (bytes up to
+ *   0x20, and 0x7f) becomes one space,
  *   and leading and trailing spaces go;
  * - a clause of more than SUMMARY_MAX characters (UTF-8 code points) is
  *   cut at the last space within its first SUMMARY_MAX - 3 characters
