@@ -204,7 +204,7 @@ static molq_status check_geometry(const molq_spec *s, molq_warnlist *warn)
                             "differs by %+.2g %% from %.6g cm^-1 computed from "
                             "'geometry' (principal moment %.6g amu "
                             "Angstrom^2, main-isotope masses; expected within "
-                            "%g %%, the size of vibrational averaging)", nm,
+                            "%g %%, allowing for vibrational averaging)", nm,
                             k, n == 1 ? "B" : axis[k], s->rot[k], 100.0 * d,
                             geo[k], n == 1 ? 0.5 * (mom[1] + mom[2]) : mom[k],
                             100.0 * GEOM_TOL)) != MOLQ_OK)
