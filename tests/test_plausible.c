@@ -573,6 +573,30 @@ START_TEST(geometry_input_errors)
     geometry_error(many, "H65", "nonlinear", MOLQ_ELIMIT,
                    "species 'G': field 'geometry': at most 64 atoms (got "
                    "65)");
+    /* 64, at the limit, load (an invented chain H64, 1 A apart; its
+     * constants do not fit, which is a warning) */
+    {
+        char js[16384];
+        molq_db *db;
+        const molq_species *sp;
+        strcpy(many, "[");
+        for (i = 0; i < 64; i++)
+            snprintf(many + strlen(many), sizeof many - strlen(many),
+                     "%s{\"element\": \"H\", \"xyz\": [%zu, 0, 0]}",
+                     i ? ", " : "", i);
+        strcat(many, "]");
+        snprintf(js, sizeof js,
+                 "{\"schema_version\": 1, \"species\": [{\"name\": "
+                 "\"G\", \"formula\": \"H64\", \"structure\": "
+                 "\"linear\", \"symmetry_number\": 2, "
+                 "\"rotational_constants\": [1.0], \"geometry\": %s}]}",
+                 many);
+        sp = tu_from_json(js, &db);
+        ck_assert_uint_eq(molq_species_warning_count(sp), 1);
+        ck_assert_ptr_nonnull(strstr(molq_species_warning(sp, 0),
+                                     "'rotational_constants[0]'"));
+        molq_db_free(db);
+    }
 }
 END_TEST
 

@@ -676,7 +676,11 @@ MOLQ_API double molq_species_t_min(const molq_species *species);
  * read from a file that holds its two atoms with formation enthalpies, the
  * dissociation energy against the formation enthalpies (1 % or 1 kJ/mol;
  * this one is added when the database is read, so a species made alone
- * with molq_species_create does not get it).
+ * with molq_species_create does not get it).  A species with a geometry
+ * (molq_spec_add_geometry_atom) has its rotational constants checked
+ * against the geometry's principal moments of inertia (4 %), its shape
+ * against its structure and a linear molecule's symmetry number against
+ * the geometry's centre of symmetry.
  * They are fixed when the species is made (molq_species_with_model keeps
  * the original's) and never change afterwards.
  * @return the number of warnings (0 for a NULL species).  Thread-safe.
