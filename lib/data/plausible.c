@@ -35,11 +35,13 @@
  *     B only).  A geometry is an equilibrium (re) structure while the
  *     constants are usually ground-state ones (B0): they differ by the
  *     vibrational averaging, B0 - Be = -sum alpha_i d_i / 2, typically
- *     0.3-1.5 % (built-in set: CO2, N2O, HCN, COS, CS2, SO2, O3, NO2 and
- *     HNO within 1.2 %), more for light hydrides, and the C constant of a
- *     planar molecule carries the inertial defect on top (built-in set:
- *     H2S, NH2, H2O, NH3, CH4 up to about 3 %).  Band 4 %: a bond typed
- *     10 % long (a 20 % error in the constants) or a wrong atom is caught.
+ *     0.3-1.5 % (built-in set: CO2, N2O, HCN, COS, CS2, SO2, O3, NO2,
+ *     HNO and C2H6 within 1.1 %; the hydrides HO2 1.5 %, CH4 1.3 %), and
+ *     the smallest constant C of a light hydride carries the inertial
+ *     defect on top (H2S 2.0 %, NH3 2.4 %, H2O 2.4 %, NH2 2.5 %).  Band
+ *     4 %: above all of these with room for hydrides not in the set, and
+ *     a bond typed 10 % long (a 20 % error in the constants), a wrong
+ *     atom or a wrong isotope of hydrogen (D for H: 10-50 %) is caught.
  *     A linear structure with a geometry that is not collinear, or the
  *     reverse, is warned instead; for a linear molecule the symmetry
  *     number must be 2 when the geometry is centrosymmetric, else 1.
