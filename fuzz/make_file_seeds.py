@@ -68,6 +68,22 @@ def diatomic(name, nstates, pi=False, weights=None, formula="NO"):
             "dissociation_energy": 52000.0, "diatomic_states": states}
 
 
+def grid(formula_counts):
+    """Atoms on a 1.5 Angstrom grid, in order of the formula's elements."""
+    atoms = []
+    for el, n in formula_counts:
+        for _ in range(n):
+            k = len(atoms)
+            atoms.append({"element": el,
+                          "xyz": [1.5 * (k % 4), 1.5 * (k // 4 % 4),
+                                  1.5 * (k // 16)]})
+    return atoms
+
+
+WATER_GEOMETRY = [{"element": "O", "xyz": [0.0, 0.0, 0.0]},
+                  {"element": "H", "xyz": [0.75695, 0.58588, 0.0]},
+                  {"element": "H", "xyz": [-0.75695, 0.58588, 0.0]}]
+
 SEEDS = {
     # many modes, torsions replacing some (the overflow's shape and beyond)
     "gen_poly_12_vib_2_tors": [poly("p12", 12, 2)],
@@ -109,6 +125,27 @@ SEEDS = {
     "gen_bound_integral_float": [{"name": "l", "formula": "CO2",
                                   "structure": "linear", "symmetry_number":
                                   2.0, "rotational_constants": [0.39]}],
+    # geometries: a good one, one 10 % too large (warned), a linear one,
+    # and the 64-atom limit and one past it
+    "gen_geometry_water": [dict(poly("gw", 3, 0), formula="H2O",
+                                rotational_constants=[27.877, 14.512, 9.285],
+                                geometry=WATER_GEOMETRY),
+                           dict(poly("gw10", 3, 0), formula="H2O",
+                                rotational_constants=[27.877, 14.512, 9.285],
+                                geometry=[dict(a, xyz=[1.1 * x for x in
+                                                       a["xyz"]])
+                                          for a in WATER_GEOMETRY])],
+    "gen_geometry_linear": [{"name": "l", "formula": "CO2",
+                             "structure": "linear", "symmetry_number": 2,
+                             "rotational_constants": [0.39],
+                             "geometry": [
+                                 {"element": "O", "xyz": [0, 0, -1.16]},
+                                 {"element": "C", "xyz": [0, 0, 0]},
+                                 {"element": "O", "xyz": [0, 0, 1.16]}]}],
+    "gen_geometry_64_atoms": [dict(poly("g64", 6, 0), formula="C20H44",
+                                   geometry=grid([("C", 20), ("H", 44)]))],
+    "gen_geometry_65_atoms": [dict(poly("g65", 6, 0), formula="C20H45",
+                                   geometry=grid([("C", 20), ("H", 45)]))],
     "gen_validated_range": [{"name": "a", "formula": "Ar",
                              "structure": "atom",
                              "validated_range": [100, 6000]}],

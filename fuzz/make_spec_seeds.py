@@ -107,6 +107,12 @@ class Seed:
     def dfh(self, x):
         return self.op(DFH, d(x))
 
+    def atom(self, element, x, y, z):
+        """A geometry atom (DFH with the high bit): element H, O, C or N
+        chosen by bits 4-5 of the code and a 0 byte after the position."""
+        k = "HOCN".index(element)
+        return self.op(DFH | 0x80 | (k << 4), d(x), d(y), d(z), bytes([0]))
+
     def states(self, errlen, *tp):
         self.b.append(STOP)
         if errlen == 0:
@@ -176,6 +182,16 @@ def seeds():
                          .vib(3756).model(True).anharmonicity(0, 0, -43.0)
                          .anharmonicity(1, 1, -17.0).d0_product(199, 199)
                          .states(200, (300.0, 1e5), (2000.0, 1e5)))
+    # H2O with its equilibrium geometry (re 0.958 A, 104.4776 deg, Hoy &
+    # Bunker 1979 via CCCBDB), then with the bonds 10 % long (warned)
+    for tag, f in (("", 1.0), ("_long", 1.1)):
+        yield "h2o_geometry" + tag, (
+            Seed("H2O").formula("H2O").mass(0.0180153).structure(NONLINEAR)
+            .sigma(2).rot(27.877, 14.512, 9.285).vib(3657).vib(1595)
+            .vib(3756).atom("O", 0.0, 0.0, 0.0)
+            .atom("H", 0.75695 * f, 0.58588 * f, 0.0)
+            .atom("H", -0.75695 * f, 0.58588 * f, 0.0)
+            .states(250, (298.15, 1e5)))
     # Descriptions that must be refused or evaluations that must fail.
     yield "sigma_zero", (Seed("bad-sigma").mass(0.03).structure(LINEAR)
                          .sigma(0).rot(1.0).states(100, (300.0, 1e5)))

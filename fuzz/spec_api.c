@@ -7,15 +7,17 @@
  *   out-of-range codes), symmetry number (any int), rotational constants
  *   (0..4 values; 4 must be refused), rotor (any int), one vibration, one
  *   electronic level, a run of up to 1100 vibrations / 10100 levels (to
- *   reach the documented limits), formation enthalpy, a fresh spec_new
- *   (reset); then up to 6 (T, p) states to evaluate at.
+ *   reach the documented limits), formation enthalpy or (high bit) a
+ *   geometry atom, a fresh spec_new (reset); then up to 6 (T, p) states
+ *   to evaluate at.
  * Doubles include 0, -0, NaN, +-inf, DBL_MAX, subnormals and raw bit
  * patterns.
  *
  * Invariants:
  *  - setters: MOLQ_OK, except MOLQ_EARG for NULL arguments and for more
  *    than 3 rotational constants, MOLQ_ELIMIT exactly from the 1001st
- *    vibration and the 10001st electronic level (README limits);
+ *    vibration, the 10001st electronic level and the 65th geometry atom
+ *    (README limits);
  *  - molq_species_create: MOLQ_OK, or MOLQ_EKEY / MOLQ_EVALUE with a
  *    non-empty NUL-terminated message within errlen (errlen fuzzed, 0 and
  *    NULL allowed) and *out untouched;
@@ -49,6 +51,8 @@ typedef struct model {
     /* Torsions and anharmonic vibration terms. */
     size_t ntors, nterms[8], nvterms;
     int has_top_w;
+    /* Geometry atoms (molq_spec_add_geometry_atom). */
+    size_t natoms;
 } model;
 
 static void model_reset(model *m, const char *name)
@@ -96,6 +100,8 @@ static int model_valid(const model *m)
         return 0;
     if (m->levels_used)
         return 0; /* the level-sum rules are not modelled here */
+    if (m->natoms > 0)
+        return 0; /* nor the geometry's match with the formula */
     return 1;
 }
 
@@ -520,6 +526,28 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
             break;
         }
         case 12:
+            if (code & 0x80) {
+                /* a geometry atom: a known element, an unknown one, an
+                 * empty or a fuzzed symbol, at a fuzzed position */
+                static const char *const el[] = {"H", "O", "C", "N", "D",
+                                                 "Xx", ""};
+                char *t = (code & 0x40) ? fz_string(&f, 12) : NULL;
+                double x = fz_double(&f), y = fz_double(&f),
+                       z = fz_double(&f);
+                st = molq_spec_add_geometry_atom(
+                    s, t ? t : el[(code >> 4) % 4 + (fz_u8(&f) % 4)], x, y,
+                    z);
+                if (m.natoms < 64) { /* molq.h: at most 64 atoms */
+                    CHECK(st == MOLQ_OK, "add_geometry_atom #%zu returned %d",
+                          m.natoms + 1, (int)st);
+                    m.natoms++;
+                } else {
+                    CHECK(st == MOLQ_ELIMIT, "geometry atom #%zu returned %d, "
+                          "not ELIMIT", m.natoms + 1, (int)st);
+                }
+                free(t);
+                break;
+            }
             m.dfh = fz_double(&f);
             m.has_dfh = 1;
             CHECK(molq_spec_set_formation_enthalpy(s, m.dfh) == MOLQ_OK,
@@ -556,7 +584,8 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
               "string within errlen %zu", errlen);
         CHECK(errlen == sizeof err || err[errlen] == 'x',
               "wrote past errlen %zu", errlen);
-        if (st == MOLQ_EKEY && !m.levels_used)
+        /* a geometry needs a formula: MOLQ_EKEY even with a mass */
+        if (st == MOLQ_EKEY && !m.levels_used && m.natoms == 0)
             CHECK(!m.has_mass && !m.has_formula_only,
                   "EKEY although a mass or formula was given");
         molq_spec_free(s);

@@ -6,6 +6,11 @@ a few per cent for real molecules: common practice, e.g. Herzberg, Spectra of
 Diatomic Molecules, 1950) must hold within 5 %.  The check caught NO's De given
 as 0.54e-6 instead of 0.54e-5 (ratio 0.099).
 
+Every built-in molecule of three or more atoms must carry a "geometry", so
+that the library checks its rotational constants against the principal moments
+of inertia at load (lib/data/plausible.c; tests/test_plausible.c proves the
+built-in set loads without a warning).
+
 Usage: check_data.py DIR (the folder holding the species files)."""
 import glob
 import json
@@ -20,6 +25,10 @@ def main(folder):
         with open(path, encoding="utf-8") as f:
             doc = json.load(f)
         for sp in doc.get("species", []):
+            if (sp.get("structure") != "atom" and "geometry" not in sp
+                    and "diatomic_states" not in sp):
+                bad.append("%s: no \"geometry\" (a polyatomic's "
+                           "rotational constants go unchecked)" % sp["name"])
             for st in sp.get("diatomic_states", []):
                 if "De" not in st or "we" not in st or "Be" not in st:
                     continue

@@ -344,6 +344,27 @@ MOLQ_API molq_status molq_spec_set_validated_range(molq_spec *spec,
                                                    double t_low,
                                                    double t_high);
 
+/* Append one atom of the molecule's equilibrium geometry: its element
+ * symbol ("O", "H", "D", ...; copied) and Cartesian position in Angstrom,
+ * in any frame (the species-file key is "geometry").  Used only to check
+ * the rotational constants: at molq_species_create the atoms must match
+ * the formula's composition (a formula is then required), lie within
+ * 1000 Angstrom of the origin and at least 0.1 Angstrom apart, else
+ * MOLQ_EVALUE naming "geometry[i]...".  The principal moments of inertia
+ * with the most abundant isotopes' masses give A >= B >= C (B for a
+ * linear molecule); a constant more than 4 % from its geometric value,
+ * a geometry that is not collinear for a linear structure (or collinear
+ * for a nonlinear one), or a linear molecule's symmetry number that does
+ * not match its geometry (2 when centrosymmetric, else 1) is reported as
+ * a warning, never an error.  At most 64 atoms.  Not thread-safe on one
+ * spec.  @return MOLQ_OK, MOLQ_EARG (NULL spec or element), MOLQ_ELIMIT
+ * (a 65th atom), MOLQ_ENOMEM.  Added in 0.1.0. */
+MOLQ_API molq_status molq_spec_add_geometry_atom(molq_spec *spec,
+                                                 const char *element,
+                                                 double x_angstrom,
+                                                 double y_angstrom,
+                                                 double z_angstrom);
+
 /* Set the standard enthalpy of formation at 298.15 K in J/mol.
  * @return MOLQ_OK or MOLQ_EARG.  Added in 0.1.0. */
 MOLQ_API molq_status molq_spec_set_formation_enthalpy(molq_spec *spec,
@@ -656,7 +677,11 @@ MOLQ_API double molq_species_t_min(const molq_species *species);
  * a singly charged ion the atoms of its lower limit, A+ + B or A + B+), the
  * dissociation energy against the formation enthalpies (1 % or 1 kJ/mol;
  * this one is added when the database is read, so a species made alone
- * with molq_species_create does not get it).
+ * with molq_species_create does not get it).  A species with a geometry
+ * (molq_spec_add_geometry_atom) has its rotational constants checked
+ * against the geometry's principal moments of inertia (4 %), its shape
+ * against its structure and a linear molecule's symmetry number against
+ * the geometry's centre of symmetry.
  * They are fixed when the species is made (molq_species_with_model keeps
  * the original's) and never change afterwards.
  * @return the number of warnings (0 for a NULL species).  Thread-safe.

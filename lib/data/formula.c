@@ -12,21 +12,46 @@
 #include "core/errbuf.h"
 #include "data/spec.h"
 
+/* ar: standard atomic weight; iso: mass of the most abundant isotope in u
+ * (the nuclide named in brackets), from the Atomic Mass Evaluation AME 2020
+ * (Wang et al., Chin. Phys. C 45, 030003 (2021)), quoted from memory; 12C
+ * is 12 by definition.  Used for moments of inertia from a geometry. */
 static const struct {
     const char *sym;
-    double ar;
+    double ar, iso;
 } weights[] = {
-    {"H", 1.008},      {"He", 4.002602},  {"Li", 6.94},
-    {"Be", 9.0121831}, {"B", 10.81},      {"C", 12.011},
-    {"N", 14.007},     {"O", 15.999},     {"F", 18.998403162},
-    {"Ne", 20.1797},   {"Na", 22.98976928}, {"Mg", 24.305},
-    {"Al", 26.9815384}, {"Si", 28.085},   {"P", 30.973761998},
-    {"S", 32.06},      {"Cl", 35.45},     {"Ar", 39.95},
-    {"K", 39.0983},    {"Ca", 40.078},    {"Ti", 47.867},
-    {"Cr", 51.9961},   {"Fe", 55.845},    {"Ni", 58.6934},
-    {"Cu", 63.546},    {"Zn", 65.38},     {"Br", 79.904},
-    {"Kr", 83.798},    {"I", 126.90447},  {"Xe", 131.293},
-    {"D", 2.01410177812}, /* deuterium, atomic mass (AME 2020) */
+    {"H", 1.008, 1.00782503223},        /* 1H */
+    {"He", 4.002602, 4.00260325413},    /* 4He */
+    {"Li", 6.94, 7.0160034366},         /* 7Li */
+    {"Be", 9.0121831, 9.012183065},     /* 9Be */
+    {"B", 10.81, 11.00930536},          /* 11B */
+    {"C", 12.011, 12.0},                /* 12C */
+    {"N", 14.007, 14.00307400443},      /* 14N */
+    {"O", 15.999, 15.99491461957},      /* 16O */
+    {"F", 18.998403162, 18.99840316273}, /* 19F */
+    {"Ne", 20.1797, 19.9924401762},     /* 20Ne */
+    {"Na", 22.98976928, 22.989769282},  /* 23Na */
+    {"Mg", 24.305, 23.985041697},       /* 24Mg */
+    {"Al", 26.9815384, 26.98153841},    /* 27Al */
+    {"Si", 28.085, 27.97692653465},     /* 28Si */
+    {"P", 30.973761998, 30.97376199842}, /* 31P */
+    {"S", 32.06, 31.9720711744},        /* 32S */
+    {"Cl", 35.45, 34.968852682},        /* 35Cl */
+    {"Ar", 39.95, 39.9623831237},       /* 40Ar */
+    {"K", 39.0983, 38.9637064864},      /* 39K */
+    {"Ca", 40.078, 39.962590863},       /* 40Ca */
+    {"Ti", 47.867, 47.94794198},        /* 48Ti */
+    {"Cr", 51.9961, 51.94050623},       /* 52Cr */
+    {"Fe", 55.845, 55.93493633},        /* 56Fe */
+    {"Ni", 58.6934, 57.93534241},       /* 58Ni */
+    {"Cu", 63.546, 62.92959772},        /* 63Cu */
+    {"Zn", 65.38, 63.92914201},         /* 64Zn */
+    {"Br", 79.904, 78.9183376},         /* 79Br */
+    {"Kr", 83.798, 83.9114977282},      /* 84Kr */
+    {"I", 126.90447, 126.9044719},      /* 127I */
+    {"Xe", 131.293, 131.9041550856},    /* 132Xe */
+    /* deuterium, atomic mass (AME 2020) */
+    {"D", 2.01410177812, 2.01410177812},
 };
 
 #define MAX_DEPTH 8
@@ -178,6 +203,12 @@ bad:
               "with counts and an optional trailing charge, e.g. CO2, "
               "Ca(OH)2, N2+, O-, e-)", formula);
     return MOLQ_EVALUE;
+}
+
+double molq_isotope_mass(const char *symbol)
+{
+    int k = symbol != NULL ? lookup_index(symbol, strlen(symbol)) : -1;
+    return k < 0 ? 0.0 : weights[k].iso;
 }
 
 molq_status molq_formula_molar_mass(const char *formula, double *out,

@@ -28,7 +28,10 @@
  *  "alpha": [[i, alpha_A, alpha_B, alpha_C] | [i, alpha], ...]} with mode
  * indices into vibrations (cm^-1).  Nonlinear molecules: rotational_weights
  * ({"ee", "eo", "oe", "oo"}: (Ka, Kc) class weights) or rotational_spin
- * ({"group": "C3v" | "Td", "nuclear_spin": I}). */
+ * ({"group": "C3v" | "Td", "nuclear_spin": I}).
+ * geometry (array of at most 64 {"element": symbol, "xyz": [x, y, z]},
+ * Angstrom): the equilibrium structure, checked against the rotational
+ * constants (a warning) and against the formula (an error). */
 #include <jansson.h>
 #include <stdlib.h>
 #include <string.h>
@@ -92,10 +95,63 @@ static molq_status read_pairs(molq_json_ctx *c, molq_spec *s, json_t *arr,
     return MOLQ_OK;
 }
 
+/* "geometry": [{"element": "O", "xyz": [x, y, z]}, ...] in Angstrom. */
+static molq_status read_geometry(molq_json_ctx *c, molq_spec *s, json_t *arr)
+{
+    static const char *const allowed[] = {"element", "xyz", NULL};
+    char name[64], what[96];
+    size_t i, k;
+    json_t *item;
+    molq_status st;
+    if (!json_is_array(arr))
+        return molq_json_key_error(c, MOLQ_ETYPE, "geometry",
+                                   "expected an array of {\"element\", "
+                                   "\"xyz\"} objects");
+    if (json_array_size(arr) > MOLQ_MAX_GEOMETRY_ATOMS) {
+        snprintf(what, sizeof what, "at most %d atoms (got %zu)",
+                 MOLQ_MAX_GEOMETRY_ATOMS, json_array_size(arr));
+        return molq_json_key_error(c, MOLQ_ELIMIT, "geometry", what);
+    }
+    json_array_foreach(arr, i, item) {
+        const char *el;
+        double x[3];
+        json_t *v;
+        snprintf(name, sizeof name, "geometry[%zu]", i);
+        if (!json_is_object(item))
+            return molq_json_key_error(c, MOLQ_ETYPE, name,
+                                       "expected an object {\"element\", "
+                                       "\"xyz\"}");
+        snprintf(name, sizeof name, "geometry[%zu].", i);
+        if ((st = molq_json_check_keys(c, item, allowed, name)) != MOLQ_OK)
+            return st;
+        snprintf(name, sizeof name, "geometry[%zu].element", i);
+        if ((v = json_object_get(item, "element")) == NULL)
+            return molq_json_key_error(c, MOLQ_EKEY, name, "missing");
+        if ((st = molq_json_string(c, v, name, &el)) != MOLQ_OK)
+            return st;
+        snprintf(name, sizeof name, "geometry[%zu].xyz", i);
+        if ((v = json_object_get(item, "xyz")) == NULL)
+            return molq_json_key_error(c, MOLQ_EKEY, name,
+                                       "missing ([x, y, z] in Angstrom)");
+        if (!json_is_array(v) || json_array_size(v) != 3)
+            return molq_json_key_error(c, MOLQ_ETYPE, name,
+                                       "expected [x, y, z] in Angstrom");
+        for (k = 0; k < 3; k++)
+            if ((st = molq_json_number(c, json_array_get(v, k), name,
+                                       &x[k])) != MOLQ_OK)
+                return st;
+        if ((st = molq_spec_add_geometry_atom(s, el, x[0], x[1], x[2])) !=
+            MOLQ_OK)
+            return st;
+    }
+    return MOLQ_OK;
+}
+
 static const char *const entry_keys[] = {
     "name", "formula", "molar_mass", "structure", "symmetry_number",
     "rotational_constants", "rotor", "vibrations", "electronic_levels",
-    "formation_enthalpy_298", "source", "validated_range", NULL};
+    "formation_enthalpy_298", "source", "validated_range", "geometry",
+    NULL};
 
 static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
 {
@@ -213,6 +269,9 @@ static molq_status read_entry(molq_json_ctx *c, json_t *e, molq_spec *s)
             return st;
         molq_spec_set_validated_range(s, r[0], r[1]);
     }
+    if ((v = json_object_get(e, "geometry")) != NULL &&
+        (st = read_geometry(c, s, v)) != MOLQ_OK)
+        return st;
     return molq_json_read_levels(c, e, s);
 }
 

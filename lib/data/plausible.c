@@ -27,11 +27,33 @@
  *     the value implied by Be by the Born-Oppenheimer breakdown (< 0.1 %
  *     except for hydrides).  Band 2 %.
  *
+ *  5. Rotational constants against a "geometry" (polyatomics, or any
+ *     molecule): the principal moments of inertia about the centre of
+ *     mass, with the masses of the most abundant isotopes (AME 2020, from
+ *     memory; data/formula.c), give B = h / (8 pi^2 c I) for each axis;
+ *     A >= B >= C are compared with the species' sorted constants (linear:
+ *     B only).  A geometry is an equilibrium (re) structure while the
+ *     constants are usually ground-state ones (B0): they differ by the
+ *     vibrational averaging, B0 - Be = -sum alpha_i d_i / 2, typically
+ *     0.3-1.5 % (built-in set: CO2, N2O, HCN, COS, CS2, SO2, O3, NO2,
+ *     HNO and C2H6 within 1.1 %; the hydrides HO2 1.5 %, CH4 1.3 %), and
+ *     the smallest constant C of a light hydride carries the inertial
+ *     defect on top (H2S 2.0 %, NH3 2.4 %, H2O 2.4 %, NH2 2.5 %).  Band
+ *     4 %: above all of these with room for hydrides not in the set, and
+ *     a bond typed 10 % long (a 20 % error in the constants), a wrong
+ *     atom or a wrong isotope of hydrogen (D for H: 10-50 %) is caught.
+ *     A linear structure with a geometry that is not collinear, or the
+ *     reverse, is warned instead; for a linear molecule the symmetry
+ *     number must be 2 when the geometry is centrosymmetric, else 1.
+ *     (The symmetry number of a nonlinear molecule is not checked.)
+ *
  * The Dunham coefficients carry the signs of the expansion: Y10 = we,
  * Y20 = -wexe, Y01 = Be, Y11 = -alpha_e, Y02 = -De. */
 #include <math.h>
+#include <string.h>
 
 #include "core/constants.h"
+#include "core/eigen.h"
 #include "data/spec.h"
 
 #define KRATZER_LO 0.8
@@ -41,6 +63,13 @@
 #define TURNOVER_LO 0.7
 #define TURNOVER_HI 1.8
 #define BE_RE_TOL 0.02
+#define GEOM_TOL 0.04
+/* smallest / largest principal moment below which atoms count as
+ * collinear: a bent triatomic with a 179 deg angle has about 1e-4, the
+ * rounding of coordinates typed to 1e-4 Angstrom far less */
+#define GEOM_COLLINEAR 1e-5
+/* Angstrom: how far an atom's inversion image may miss its partner */
+#define GEOM_CENTRO_TOL 1e-3
 
 /* Reduced mass (kg/mol) of a formula of exactly two atoms; 0 otherwise. */
 static double reduced_mass(const char *formula)
@@ -63,6 +92,129 @@ static double reduced_mass(const char *formula)
     return ma * mb / (ma + mb);
 }
 
+/* h / (8 pi^2 c) in cm^-1 amu Angstrom^2: B = GEOM_BI / I. */
+#define GEOM_BI (MOLQ_H_PLANCK / (8.0 * MOLQ_PI * MOLQ_PI * MOLQ_C_LIGHT * \
+                                  MOLQ_M_U * 1e-20) / 100.0)
+
+/* Principal moments (amu Angstrom^2, ascending) of a validated geometry
+ * about its centre of mass, written to mom; the centre to com. */
+static void principal_moments(const molq_spec *s, double mom[3],
+                              double com[3])
+{
+    double t[9] = {0.0}, scratch[6], mt = 0.0;
+    size_t i, j, k;
+    com[0] = com[1] = com[2] = 0.0;
+    for (i = 0; i < s->natoms; i++) {
+        double m = molq_isotope_mass(s->atoms[i].element);
+        mt += m;
+        for (k = 0; k < 3; k++)
+            com[k] += m * s->atoms[i].xyz[k];
+    }
+    for (k = 0; k < 3; k++)
+        com[k] /= mt;
+    for (i = 0; i < s->natoms; i++) {
+        double m = molq_isotope_mass(s->atoms[i].element), r[3], r2;
+        for (k = 0; k < 3; k++)
+            r[k] = s->atoms[i].xyz[k] - com[k];
+        r2 = r[0] * r[0] + r[1] * r[1] + r[2] * r[2];
+        for (j = 0; j < 3; j++)
+            for (k = 0; k < 3; k++)
+                t[3 * j + k] += m * ((j == k ? r2 : 0.0) - r[j] * r[k]);
+    }
+    molq_eigen_symm(t, 3, scratch, mom);
+    for (i = 0; i < 2; i++) /* three values: sort ascending */
+        for (j = i + 1; j < 3; j++)
+            if (mom[j] < mom[i]) {
+                double x = mom[i];
+                mom[i] = mom[j];
+                mom[j] = x;
+            }
+    for (i = 0; i < 3; i++) /* rounding can leave -1e-16 on a linear axis */
+        if (mom[i] < 0.0)
+            mom[i] = 0.0;
+}
+
+/* Is every atom's image through the centre of mass an atom of the same
+ * element? */
+static int centrosymmetric(const molq_spec *s, const double com[3])
+{
+    size_t i, j, k;
+    for (i = 0; i < s->natoms; i++) {
+        int found = 0;
+        for (j = 0; j < s->natoms && !found; j++) {
+            double d2 = 0.0;
+            if (strcmp(s->atoms[i].element, s->atoms[j].element) != 0)
+                continue;
+            for (k = 0; k < 3; k++) {
+                double d = 2.0 * com[k] - s->atoms[i].xyz[k] -
+                           s->atoms[j].xyz[k];
+                d2 += d * d;
+            }
+            found = d2 <= GEOM_CENTRO_TOL * GEOM_CENTRO_TOL;
+        }
+        if (!found)
+            return 0;
+    }
+    return 1;
+}
+
+static molq_status check_geometry(const molq_spec *s, molq_warnlist *warn)
+{
+    static const char *const axis[3] = {"A", "B", "C"};
+    const char *nm = s->name;
+    double mom[3], com[3], geo[3];
+    size_t k, n;
+    int collinear;
+    molq_status rc;
+    principal_moments(s, mom, com);
+    collinear = mom[0] <= GEOM_COLLINEAR * mom[2];
+    if (!(mom[2] > 0.0))
+        return MOLQ_OK; /* cannot happen for two atoms 0.1 A apart */
+    if (s->structure == MOLQ_LINEAR && !collinear)
+        return molq_warn(warn, "species '%s': field 'geometry': the atoms are "
+                         "not collinear (principal moments %.4g, %.4g, %.4g "
+                         "amu Angstrom^2) but 'structure' is linear", nm,
+                         mom[0], mom[1], mom[2]);
+    if (s->structure == MOLQ_NONLINEAR && collinear)
+        return molq_warn(warn, "species '%s': field 'geometry': the atoms are "
+                         "collinear (principal moments %.4g, %.4g, %.4g amu "
+                         "Angstrom^2) but 'structure' is nonlinear", nm,
+                         mom[0], mom[1], mom[2]);
+    if (s->structure == MOLQ_LINEAR) {
+        int centro = centrosymmetric(s, com);
+        geo[0] = GEOM_BI / (0.5 * (mom[1] + mom[2]));
+        n = 1;
+        if (s->sigma != (centro ? 2 : 1) &&
+            (rc = molq_warn(warn, "species '%s': field 'symmetry_number': %d, "
+                            "but the geometry is %scentrosymmetric, so the "
+                            "linear molecule's symmetry number is %d", nm,
+                            s->sigma, centro ? "" : "not ",
+                            centro ? 2 : 1)) != MOLQ_OK)
+            return rc;
+    } else {
+        for (k = 0; k < 3; k++)
+            geo[k] = GEOM_BI / mom[k];
+        n = 3;
+    }
+    if (s->nrot != n)
+        return MOLQ_OK; /* a diatomic's constants from its states */
+    for (k = 0; k < n; k++) {
+        double d = (s->rot[k] - geo[k]) / geo[k];
+        if (fabs(d) > GEOM_TOL &&
+            (rc = molq_warn(warn, "species '%s': field "
+                            "'rotational_constants[%zu]': %s = %.6g cm^-1 "
+                            "differs by %+.2g %% from %.6g cm^-1 computed from "
+                            "'geometry' (principal moment %.6g amu "
+                            "Angstrom^2, main-isotope masses; expected within "
+                            "%g %%, allowing for vibrational averaging)", nm,
+                            k, n == 1 ? "B" : axis[k], s->rot[k], 100.0 * d,
+                            geo[k], n == 1 ? 0.5 * (mom[1] + mom[2]) : mom[k],
+                            100.0 * GEOM_TOL)) != MOLQ_OK)
+            return rc;
+    }
+    return MOLQ_OK;
+}
+
 static int outside(double r, double lo, double hi)
 {
     return !(r >= lo && r <= hi);
@@ -75,6 +227,8 @@ molq_status molq_spec_plausible(const molq_spec *s, molq_warnlist *warn)
     molq_status rc;
     if (warn == NULL)
         return MOLQ_OK;
+    if (s->natoms > 0 && (rc = check_geometry(s, warn)) != MOLQ_OK)
+        return rc;
     for (i = 0; i < s->nstates; i++) {
         const molq_spec_state *st = &s->states[i];
         double we = st->y[1][0], wexe = -st->y[2][0];

@@ -1,5 +1,6 @@
 /* The public molq_spec_* functions: a mutable species description.  Setters
  * store; molq_spec_validate judges. */
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -40,6 +41,7 @@ void molq_spec_free(molq_spec *s)
     free(s->states);
     free(s->torsions);
     free(s->vterms);
+    free(s->atoms);
     free(s);
 }
 
@@ -70,6 +72,7 @@ molq_spec *molq_spec_clone(const molq_spec *s)
     c->states = NULL;
     c->torsions = NULL;
     c->vterms = NULL;
+    c->atoms = NULL;
     c->cap_vib = c->nvib;
     c->cap_el = c->nel;
     ok = (c->name = molq_strdup(s->name)) != NULL &&
@@ -84,7 +87,9 @@ molq_spec *molq_spec_clone(const molq_spec *s)
          copy_array((void **)&c->torsions, s->torsions,
                     s->ntorsions * sizeof(molq_spec_torsion)) &&
          copy_array((void **)&c->vterms, s->vterms,
-                    s->nvterms * sizeof(molq_spec_vibterm));
+                    s->nvterms * sizeof(molq_spec_vibterm)) &&
+         copy_array((void **)&c->atoms, s->atoms,
+                    s->natoms * sizeof(molq_spec_atom));
     if (!ok) {
         molq_spec_free(c);
         return NULL;
@@ -284,6 +289,29 @@ molq_status molq_spec_set_validated_range(molq_spec *s, double t_lo,
     s->range_lo = t_lo;
     s->range_hi = t_hi;
     s->has_range = 1;
+    return MOLQ_OK;
+}
+
+molq_status molq_spec_add_geometry_atom(molq_spec *s, const char *element,
+                                        double x, double y, double z)
+{
+    molq_spec_atom *na;
+    if (s == NULL || element == NULL)
+        return MOLQ_EARG;
+    if (s->natoms >= MOLQ_MAX_GEOMETRY_ATOMS)
+        return MOLQ_ELIMIT;
+    na = realloc(s->atoms, (s->natoms + 1) * sizeof *na);
+    if (na == NULL)
+        return MOLQ_ENOMEM;
+    s->atoms = na;
+    na += s->natoms;
+    /* kept as given, cut to 7 bytes: no element symbol is that long, so
+     * validation refuses a longer text by name */
+    snprintf(na->element, sizeof na->element, "%s", element);
+    na->xyz[0] = x;
+    na->xyz[1] = y;
+    na->xyz[2] = z;
+    s->natoms++;
     return MOLQ_OK;
 }
 

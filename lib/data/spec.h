@@ -20,6 +20,7 @@
 #define MOLQ_MAX_ROVIB_LEVELS 400000 /* bound levels of one diatomic */
 #define MOLQ_MAX_TORSIONS 8
 #define MOLQ_MAX_TORSION_TERMS 8
+#define MOLQ_MAX_GEOMETRY_ATOMS 64 /* atoms of one "geometry" */
 
 /* Bounds of the integer fields (documented in the README and molq.h,
  * refused with MOLQ_EVALUE naming the field). */
@@ -43,6 +44,14 @@ typedef struct molq_spec_state {
                 * check of Be only) */
     int has_re;
 } molq_spec_state;
+
+/* One atom of a species' equilibrium geometry (plausibility check of the
+ * rotational constants only).  The element is stored as given (at most 7
+ * bytes kept; validation refuses an unknown one). */
+typedef struct molq_spec_atom {
+    char element[8];
+    double xyz[3]; /* Angstrom */
+} molq_spec_atom;
 
 /* One hindered internal rotor. */
 typedef struct molq_spec_torsion {
@@ -103,6 +112,8 @@ struct molq_spec_s {
     double odd_fraction; /* frozen: mole fraction in odd-J levels */
     double range_lo, range_hi; /* validated range, K */
     int has_range;
+    molq_spec_atom *atoms; /* "geometry", NULL when not given */
+    size_t natoms;
 };
 
 /* The states as the level generator takes them (default weights 1/sigma);
@@ -129,7 +140,8 @@ molq_model molq_spec_default_model(const molq_spec *s);
 
 /* Plausibility of a validated spec's diatomic constants (Kratzer De,
  * Pekeris alpha_e, Birge-Sponer turnover against D0, Be against re and the
- * formula's reduced mass; data/plausible.c):
+ * formula's reduced mass) and of its rotational constants against its
+ * "geometry" (principal moments of inertia; data/plausible.c):
  * findings are appended to `warn` (may be NULL).  MOLQ_ENOMEM only. */
 molq_status molq_spec_plausible(const molq_spec *s, molq_warnlist *warn);
 
@@ -167,5 +179,10 @@ molq_status molq_formula_parse(const char *formula, molq_composition *out,
  * unknown element or malformed formula. */
 molq_status molq_formula_molar_mass(const char *formula, double *out,
                                     char *err, size_t errlen);
+
+/* Mass in u of the most abundant isotope of an element symbol of the
+ * formula table ("H", "O", ...; "D" is deuterium), 0 for an unknown one
+ * (AME 2020 from memory; data/formula.c). */
+double molq_isotope_mass(const char *symbol);
 
 #endif

@@ -271,6 +271,67 @@ static molq_status validate_torsions(const molq_spec *s, char *err,
     return MOLQ_OK;
 }
 
+/* A geometry's atoms: known elements, finite positions, no two atoms on
+ * top of each other, and exactly the formula's composition. */
+#define GEOM_MAX_COORD 1000.0 /* Angstrom from the origin */
+#define GEOM_MIN_DIST 0.1     /* Angstrom: below any bond (H2 0.74) */
+static molq_status validate_geometry(const molq_spec *s, char *err,
+                                     size_t errlen)
+{
+    const char *nm = s->name;
+    molq_composition comp;
+    char sub[300];
+    size_t i, j, k;
+    if (s->structure == MOLQ_ATOM)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'geometry': an atom has no "
+             "geometry (it checks a molecule's rotational constants)", nm);
+    if (s->formula == NULL)
+        FAIL(MOLQ_EKEY, "species '%s': field 'geometry': needs 'formula' "
+             "(the atoms must match its composition)", nm);
+    if (molq_formula_parse(s->formula, &comp, sub, sizeof sub) != MOLQ_OK)
+        FAIL(MOLQ_EVALUE, "species '%s': field 'geometry': the formula gives "
+             "no composition to match: %s", nm, sub);
+    for (i = 0; i < s->natoms; i++) {
+        const molq_spec_atom *a = &s->atoms[i];
+        int in = 0;
+        if (!(molq_isotope_mass(a->element) > 0.0))
+            FAIL(MOLQ_EVALUE, "species '%s': field 'geometry[%zu].element': "
+                 "unknown element '%s'", nm, i, a->element);
+        for (k = 0; k < comp.n && !in; k++)
+            in = strcmp(comp.el[k].symbol, a->element) == 0;
+        if (!in)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'geometry[%zu].element': "
+                 "'%s' is not in formula '%s'", nm, i, a->element,
+                 s->formula);
+        for (k = 0; k < 3; k++)
+            if (!isfinite(a->xyz[k]) || fabs(a->xyz[k]) > GEOM_MAX_COORD)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'geometry[%zu].xyz': "
+                     "must be three finite numbers of at most %g Angstrom in "
+                     "size (got %g, %g, %g)", nm, i, GEOM_MAX_COORD,
+                     a->xyz[0], a->xyz[1], a->xyz[2]);
+        for (j = 0; j < i; j++) {
+            const double *p = s->atoms[j].xyz;
+            double dx = a->xyz[0] - p[0], dy = a->xyz[1] - p[1],
+                   dz = a->xyz[2] - p[2];
+            double d = sqrt(dx * dx + dy * dy + dz * dz);
+            if (d < GEOM_MIN_DIST)
+                FAIL(MOLQ_EVALUE, "species '%s': field 'geometry[%zu].xyz': "
+                     "%.3g Angstrom from geometry[%zu]; atoms must be at "
+                     "least %g Angstrom apart", nm, i, d, j, GEOM_MIN_DIST);
+        }
+    }
+    for (k = 0; k < comp.n; k++) {
+        long n = 0;
+        for (i = 0; i < s->natoms; i++)
+            n += strcmp(comp.el[k].symbol, s->atoms[i].element) == 0;
+        if (n != comp.el[k].count)
+            FAIL(MOLQ_EVALUE, "species '%s': field 'geometry': %ld '%s' "
+                 "atom%s, but formula '%s' has %ld", nm, n, comp.el[k].symbol,
+                 n == 1 ? "" : "s", s->formula, comp.el[k].count);
+    }
+    return MOLQ_OK;
+}
+
 /* Plausibility of a molar mass that passed the hard bounds: a warning,
  * not an error, since a user may model an isotopologue or a pseudo-species
  * on purpose.  MOLQ_ENOMEM only. */
@@ -506,6 +567,8 @@ molq_status molq_spec_validate(const molq_spec *s, double *molar_mass,
     if (s->has_formation_enthalpy && !isfinite(s->formation_enthalpy))
         FAIL(MOLQ_EVALUE, "species '%s': field 'formation_enthalpy_298': must "
              "be a finite number (J/mol)", nm);
+    if (s->natoms > 0 && (rc = validate_geometry(s, err, errlen)) != MOLQ_OK)
+        return rc;
     if (molq_spec_plausible(s, warn) != MOLQ_OK) {
         molq_errf(err, errlen, "species '%s': out of memory", nm);
         return MOLQ_ENOMEM;

@@ -581,7 +581,7 @@ class Species(_Immutable):
                        spin_isomers="equilibrium", odd_fraction=None,
                        anharmonicity=None, torsions=None,
                        rotational_weights=None, rotational_spin=None,
-                       validated_range=None):
+                       validated_range=None, geometry=None):
         """Build a species from molecular constants.
 
         The arguments are the keys of the species file (README, "Species
@@ -663,6 +663,12 @@ class Species(_Immutable):
             validated_range: ``(T_low, T_high)`` in K over which the data
                 were checked against published tables (informational; see
                 :attr:`validated_range`).
+            geometry: the equilibrium structure, a list of atoms, each a
+                dict ``{"element": "O", "xyz": (x, y, z)}`` or an
+                ``(element, (x, y, z))`` pair, in Angstrom (needs
+                ``formula``; the atoms must match it).  Used only to check
+                the rotational constants: a mismatch beyond 4 % becomes a
+                warning (:attr:`warnings`).
 
         Raises:
             MolqError: the library rejected a value; the message names the
@@ -682,7 +688,7 @@ class Species(_Immutable):
             anharmonicity=anharmonicity, torsions=torsions,
             rotational_weights=rotational_weights,
             rotational_spin=rotational_spin,
-            validated_range=validated_range)
+            validated_range=validated_range, geometry=geometry)
         return cls.from_dict(entry)
 
     # -- lifetime, copying, pickling -----------------------------------------
@@ -1138,6 +1144,30 @@ class _Entry:
                             % (self.who, field, what,
                                _describe(value))) from None
 
+    def atom(self, i, a):
+        """One atom of a geometry: {"element", "xyz"} or (element, xyz)."""
+        field = "geometry[%d]" % i
+        if isinstance(a, collections.abc.Mapping):
+            self.keys(a, ("element", "xyz"), field)
+            for k in ("element", "xyz"):
+                if k not in a:
+                    raise ValueError("%s: %s.%s is missing"
+                                     % (self.who, field, k))
+            el, xyz = a["element"], a["xyz"]
+        else:
+            pair = self.seq(a, field, "a dict or an (element, (x, y, z)) "
+                            "pair")
+            if len(pair) != 2:
+                raise ValueError("%s: %s must be an (element, (x, y, z)) "
+                                 "pair" % (self.who, field))
+            el, xyz = pair
+        xyz = self.seq(xyz, field + ".xyz", "(x, y, z) in Angstrom")
+        if len(xyz) != 3:
+            raise ValueError("%s: %s.xyz must be (x, y, z) in Angstrom, not "
+                             "%d numbers" % (self.who, field, len(xyz)))
+        return {"element": self.text(el, field + ".element"),
+                "xyz": [self.num(x, field + ".xyz") for x in xyz]}
+
     def keys(self, mapping, allowed, field):
         unknown = [k for k in mapping if k not in allowed]
         if unknown:
@@ -1341,7 +1371,8 @@ def _constants_entry(name, *, structure, molar_mass, symmetry_number,
                      formation_enthalpy, formula, rotor, source, model,
                      diatomic_states, dissociation_energy, spin_isomers,
                      odd_fraction, anharmonicity, torsions,
-                     rotational_weights, rotational_spin, validated_range):
+                     rotational_weights, rotational_spin, validated_range,
+                     geometry=None):
     """The species-file entry (a dict) of Species.from_constants."""
     c = _Entry(name)
     entry = {"name": c.text(name, "name")}
@@ -1421,6 +1452,9 @@ def _constants_entry(name, *, structure, molar_mass, symmetry_number,
         c.seq(diatomic_states, "diatomic_states", "a list of dicts"))]
     if states:
         entry["diatomic_states"] = states
+    if geometry is not None:
+        entry["geometry"] = [c.atom(i, a) for i, a in enumerate(
+            c.seq(geometry, "geometry", "a list of atoms"))]
     return entry
 
 

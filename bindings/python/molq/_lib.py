@@ -129,6 +129,7 @@ _PROTOTYPES = [
     ("molq_spec_add_vibration", _int, [_ptr, _dbl, _int]),
     ("molq_spec_add_electronic_level", _int, [_ptr, _dbl, _int]),
     ("molq_spec_set_formation_enthalpy", _int, [_ptr, _dbl]),
+    ("molq_spec_add_geometry_atom", _int, [_ptr, _str, _dbl, _dbl, _dbl]),
     ("molq_spec_set_model", _int, [_ptr, _int]),
     ("molq_spec_add_diatomic_state", _int, [_ptr, _dbl, _int,
                                             _c.POINTER(_size)]),

@@ -89,6 +89,33 @@ class BadSpeciesText(unittest.TestCase):
         self.assertEqual(molq.Database.builtin().warnings, ())
         self.assertEqual(molq.Database.builtin()["N2"].warnings, ())
 
+    def test_geometry(self):
+        # from_constants takes a geometry; CO2 with re(CO) 1.1600 A (from
+        # memory) and B0 0.39022 cm^-1 (from memory) is quiet, both bonds
+        # 10 % long (B 21 % above the geometric value) are warned naming
+        # the field; an atom the formula lacks is an error naming it.
+        def co2(r, atoms=None):
+            return molq.Species.from_constants(
+                "Gc", structure="linear", molar_mass=None, formula="CO2",
+                symmetry_number=2, rotational_constants=[0.39022],
+                vibrations=[(1333, 1), (667, 2), (2349, 1)],
+                geometry=atoms or [("O", (0, 0, -r)), {"element": "C",
+                                   "xyz": [0, 0, 0]}, ("O", (0, 0, r))])
+        self.assertEqual(co2(1.16).warnings, ())
+        w = co2(1.276).warnings
+        self.assertEqual(len(w), 1)
+        self.assertIn("species 'Gc': field 'rotational_constants[0]': B = "
+                      "0.39022 cm^-1 differs by +21 %", w[0])
+        with self.assertRaises(molq.MolqError) as cm:
+            co2(0, [("O", (0, 0, -1.16)), ("S", (0, 0, 0)),
+                    ("O", (0, 0, 1.16))])
+        self.assertIn("field 'geometry[1].element': 'S' is not in formula",
+                      cm.exception.message)
+        with self.assertRaises(ValueError):
+            co2(0, [("O", (0, 0)), ("C", (0, 0, 0)), ("O", (0, 0, 1.16))])
+        # the built-in CO2 carries its geometry and stays quiet
+        self.assertEqual(molq.Database.builtin()["CO2"].warnings, ())
+
     def test_good_text_reads(self):
         db = molq.Database.from_string(species_text(GOOD_ENTRY % "1"))
         self.assertEqual(db.names(), ["Qx"])
