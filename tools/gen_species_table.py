@@ -30,7 +30,7 @@ def table(cli):
             first = first[:87].rstrip() + "..."
         lines.append("| %s | %s | %s | %s | %s | %s |" % (
             r["name"], r["formula"], r["structure"], r["model"],
-            repr(r["molar_mass"]), first))
+            "%.7g" % r["molar_mass"], first))
     return "\n".join(lines) + "\n"
 
 
