@@ -157,6 +157,83 @@ START_TEST(validated_range)
 }
 END_TEST
 
+/* Lookup in a database: by name and by formula, every built-in species.
+ * Expected: each species is found under its own name (the very same
+ * handle), and by its formula the first species in file order with that
+ * formula (molq.h, molq_db_find_formula); the formulas of the electron and
+ * of nitrogen are "e-" and "N2" (data/species/ions.json, diatomics.json). */
+START_TEST(builtin_lookup)
+{
+    molq_db *db;
+    char err[256];
+    size_t i, j, n;
+    const molq_species *sp, *got;
+    ck_assert_int_eq(molq_db_builtin(&db, err, sizeof err), MOLQ_OK);
+    n = molq_db_count(db);
+    ck_assert_uint_gt(n, 0);
+    ck_assert_ptr_null(molq_db_species(db, n));
+    for (i = 0; i < n; i++) {
+        const char *name, *formula;
+        sp = molq_db_species(db, i);
+        ck_assert_ptr_nonnull(sp);
+        name = molq_species_name(sp);
+        formula = molq_species_formula(sp);
+        ck_assert_int_eq(molq_db_find(db, name, &got), MOLQ_OK);
+        ck_assert_ptr_eq(got, sp);
+        /* every built-in species has a formula (data/species rules) */
+        ck_assert_msg(formula[0] != '\0', "%s has no formula", name);
+        ck_assert_int_eq(molq_db_find_formula(db, formula, &got), MOLQ_OK);
+        for (j = 0; j < n; j++)
+            if (strcmp(molq_species_formula(molq_db_species(db, j)),
+                       formula) == 0)
+                break;
+        ck_assert_ptr_eq(got, molq_db_species(db, j));
+    }
+    ck_assert_int_eq(molq_db_find_formula(db, "e-", &got), MOLQ_OK);
+    ck_assert_str_eq(molq_species_name(got), "e-");
+    ck_assert_int_eq(molq_species_charge(got), -1);
+    ck_assert_int_eq(molq_db_find_formula(db, "N2", &got), MOLQ_OK);
+    ck_assert_str_eq(molq_species_name(got), "N2");
+    /* exact text, no normalisation: "n2" and "N 2" are not N2 */
+    got = NULL;
+    ck_assert_int_eq(molq_db_find_formula(db, "n2", &got), MOLQ_ENOTFOUND);
+    ck_assert_int_eq(molq_db_find_formula(db, "N 2", &got), MOLQ_ENOTFOUND);
+    ck_assert_int_eq(molq_db_find(db, "n2", &got), MOLQ_ENOTFOUND);
+    ck_assert_ptr_null(got); /* untouched on failure */
+    ck_assert_int_eq(molq_db_find_formula(db, NULL, &got), MOLQ_EARG);
+    ck_assert_int_eq(molq_db_find_formula(db, "N2", NULL), MOLQ_EARG);
+    ck_assert_int_eq(molq_db_find(db, NULL, &got), MOLQ_EARG);
+    ck_assert_int_eq(molq_db_find(NULL, "N2", &got), MOLQ_EARG);
+    molq_db_free(db);
+}
+END_TEST
+
+/* Regression: "" is no formula.  A species given without a formula
+ * reports "" (molq_species_formula), and molq_db_find_formula(db, "")
+ * used to return the first such species, so the CLI's lookup of an empty
+ * word fell through to it ('molq show "" --data FILE' printed a species
+ * with no formula). */
+START_TEST(empty_formula_finds_nothing)
+{
+    static const char js[] =
+        "{\"schema_version\": 1, \"species\": ["
+        "{\"name\": \"no-formula\", \"molar_mass\": 39.948, "
+        "\"structure\": \"atom\"}, "
+        "{\"name\": \"argon\", \"formula\": \"Ar\", \"structure\": "
+        "\"atom\"}]}";
+    molq_db *db;
+    const molq_species *got = NULL;
+    tu_from_json(js, &db);
+    ck_assert_str_eq(molq_species_formula(molq_db_species(db, 0)), "");
+    ck_assert_int_eq(molq_db_find_formula(db, "", &got), MOLQ_ENOTFOUND);
+    ck_assert_ptr_null(got);
+    ck_assert_int_eq(molq_db_find(db, "", &got), MOLQ_ENOTFOUND);
+    ck_assert_int_eq(molq_db_find_formula(db, "Ar", &got), MOLQ_OK);
+    ck_assert_str_eq(molq_species_name(got), "argon");
+    molq_db_free(db);
+}
+END_TEST
+
 int main(void)
 {
     Suite *s = suite_create("composition");
@@ -165,6 +242,8 @@ int main(void)
     tcase_add_test(tc, bad_formulas);
     tcase_add_test(tc, unreadable_formula_with_mass);
     tcase_add_test(tc, validated_range);
+    tcase_add_test(tc, builtin_lookup);
+    tcase_add_test(tc, empty_formula_finds_nothing);
     suite_add_tcase(s, tc);
     return tu_run(s);
 }

@@ -5,9 +5,11 @@ usage: gen_species_table.py MOLQ_CLI README.md [--check]
 
 Runs `MOLQ_CLI list --format json` (the built-in set, nothing else) and
 replaces the text between the README's species-table markers with a
-Markdown table: name, formula, structure, model, molar mass, and the first
-clause of the source.  With --check nothing is written and the exit status
-is 1 when the README's table differs from the generated one."""
+Markdown table: name, formula, charge, structure, model, molar mass,
+validated range (K) and the source summary `molq list` gives (its rule:
+README "Command-line tool", `molq help list`).  With --check nothing is
+written and the exit status is 1 when the README's table differs from the
+generated one."""
 import json
 import subprocess
 import sys
@@ -22,15 +24,18 @@ def table(cli):
     rows = json.loads(out)["species"]
     lines = ["%d built-in species (`molq list`, `molq show NAME`):" % len(rows),
              "",
-             "| name | formula | structure | model | M, g/mol | source (first item) |",
-             "|---|---|---|---|---|---|"]
+             "| name | formula | charge | structure | model | M, g/mol "
+             "| validated, K | source (first clause) |",
+             "|---|---|---|---|---|---|---|---|"]
     for r in rows:
-        first = r["source"].split(";")[0].strip().replace("|", "/")
-        if len(first) > 90:
-            first = first[:87].rstrip() + "..."
-        lines.append("| %s | %s | %s | %s | %s | %s |" % (
-            r["name"], r["formula"], r["structure"], r["model"],
-            "%.7g" % r["molar_mass"], first))
+        vr = r["validated_range"]
+        q = r["charge"]
+        lines.append("| %s | %s | %s | %s | %s | %s | %s | %s |" % (
+            r["name"], r["formula"], "%+d" % q if q else "0", r["structure"],
+            r["model"],
+            "%.7g" % r["molar_mass"],
+            "-" if vr is None else "%g-%g" % tuple(vr),
+            r["source_summary"].replace("|", "/")))
     return "\n".join(lines) + "\n"
 
 

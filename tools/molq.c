@@ -8,7 +8,8 @@
  *                         [--model NAME]
  *   molq spin SPECIES...  [--data FILE] [--T ...] [--format ...]
  *                         [--per-mass] [--model NAME]
- *   molq list [--data FILE] [--format ...]
+ *   molq list [--data FILE] [--format ...]     (also: molq species)
+ *   molq show SPECIES... [--data FILE] [--format text|json]
  *   molq help [COMMAND] | COMMAND --help | --help | --version
  *
  * With --model or --compare, csv output names the model asked for and the
@@ -33,6 +34,29 @@ enum { CMD_TABLE, CMD_MODES, CMD_LIST, CMD_SPIN, CMD_SHOW, N_CMDS };
 
 static const char *const cmd_name[N_CMDS] = {"table", "modes", "list",
                                              "spin", "show"};
+
+/* Other words for a command: `molq species` is `molq list` (both names
+ * stay; messages name the word typed). */
+static const struct {
+    const char *word;
+    int cmd;
+} cmd_alias[] = {{"species", CMD_LIST}};
+#define N_ALIASES (sizeof cmd_alias / sizeof cmd_alias[0])
+
+/* @return the command `word` names (a command name or an alias), or
+ *         N_CMDS when it names none. */
+static int find_command(const char *word)
+{
+    int c;
+    size_t a;
+    for (c = 0; c < N_CMDS; c++)
+        if (strcmp(word, cmd_name[c]) == 0)
+            return c;
+    for (a = 0; a < N_ALIASES; a++)
+        if (strcmp(word, cmd_alias[a].word) == 0)
+            return cmd_alias[a].cmd;
+    return N_CMDS;
+}
 
 /* The models of the library with the one line the help text gives each;
  * their names come from the library (molq_model_name), as in species
@@ -66,7 +90,7 @@ static const char help_head[] =
     "  molq spin SPECIES...  [--data FILE] [--T TEMPS]\n"
     "                        [--format text|csv|json] [--per-mass]\n"
     "                        [--model NAME]\n"
-    "  molq list [--data FILE] [--format text|csv|json]\n"
+    "  molq list [--data FILE] [--format text|csv|json]   (or: molq species)\n"
     "  molq show SPECIES... [--data FILE] [--format text|json]\n"
     "  molq help [COMMAND] | molq COMMAND --help | molq --help | molq --version\n"
     "\n"
@@ -86,9 +110,10 @@ static const char help_head[] =
     "          error for a species with no spin-isomer model (e.g. H2O).\n"
     "          Default TEMPS:"
     " 20,30,40,50,77,100,150,200,298.15\n"
-    "  list    the species available: name, formula, structure, model,\n"
-    "          molar mass, whether a formation enthalpy is given, and the\n"
-    "          data source.\n"
+    "  list    the species available: name, formula, charge, structure,\n"
+    "          model, molar mass, whether a formation enthalpy is given,\n"
+    "          the validated range (K) and the source's first clause.\n"
+    "          'molq species' is the same command.\n"
     "  show    everything molq knows of a species: composition, charge,\n"
     "          ranges, modes, per-number sources, data-check warnings.\n"
     "\n"
@@ -130,6 +155,8 @@ static const char help_tail[] =
     "        (with --compare: species,model,T,cp,...)\n"
     "        modes header: species,T,mode,lnq,u,cv,s\n"
     "        spin header:  species,T,h_frozen_minus_h_eq\n"
+    "        list header:  name,formula,charge,structure,model,molar_mass,\n"
+    "        formation_enthalpy,t_low,t_high,set,source_summary,source\n"
     "        (with --model or --compare: species,model,model_used,T,...;\n"
     "        model is the one asked for, model_used the one evaluated)\n"
     "  json  {\"units\": {...}, \"pressure\": p, \"basis\": ...,\n"
@@ -213,10 +240,22 @@ static const struct {
      "  molq modes C2H6 --T 300,900\n",
      0},
     /* CMD_LIST */
-    {"molq list [--data FILE] [--format text|csv|json]\n",
-     "The species available: name, formula, structure, model, molar mass\n"
-     "(g/mol), whether a formation enthalpy is given, the set it comes from\n"
-     "and its data source.\n",
+    {"molq list [--data FILE] [--format text|csv|json]\n"
+     "       molq species [--data FILE] [--format text|csv|json]\n",
+     "The species available ('molq species' is the same command): name,\n"
+     "formula, charge (elementary charges, from the formula), structure,\n"
+     "model, molar mass (g/mol), whether a formation enthalpy is given, the\n"
+     "validated range (T_low-T_high in K, the range checked against\n"
+     "published tables; '-' when the data state none), the set it comes\n"
+     "from and a one-line source summary: the source's first clause (up to\n"
+     "its first ';' outside parentheses), white space runs made one space,\n"
+     "cut at a word to at most 60 characters with '...' when longer.\n"
+     "csv and json also carry the whole source (column/key \"source\"; the\n"
+     "summary is \"source_summary\"); csv columns: name,formula,charge,\n"
+     "structure,model,molar_mass,formation_enthalpy,t_low,t_high,set,\n"
+     "source_summary,source (t_low and t_high empty without a range); json\n"
+     "\"validated_range\" is [T_low, T_high] or null.\n"
+     "'molq show NAME' prints the whole source.\n",
      NULL,
      "  # The species of an invented rig's own file, then the built-in set.\n"
      "  molq list --data rig_gases.json\n",
@@ -298,17 +337,23 @@ static size_t edit_distance(const char *a, const char *b)
     return row[lb];
 }
 
-/* The command name nearest to `word`. */
+/* The command name or alias nearest to `word`. */
 static const char *nearest_command(const char *word)
 {
-    size_t best = (size_t)-1, d;
-    int c, pick = 0;
+    size_t best = (size_t)-1, d, a;
+    const char *pick = cmd_name[0];
+    int c;
     for (c = 0; c < N_CMDS; c++)
         if ((d = edit_distance(word, cmd_name[c])) < best) {
             best = d;
-            pick = c;
+            pick = cmd_name[c];
         }
-    return cmd_name[pick];
+    for (a = 0; a < N_ALIASES; a++)
+        if ((d = edit_distance(word, cmd_alias[a].word)) < best) {
+            best = d;
+            pick = cmd_alias[a].word;
+        }
+    return pick;
 }
 
 static const double default_T[] = {298.15, 300,  400,  500,  600, 800,
@@ -392,6 +437,7 @@ static void print_command_help(FILE *f, int cmd)
 
 typedef struct options {
     int cmd;
+    const char *word; /* the command as typed ("list" or "species") */
     const char *data_path;
     double *T; /* malloc'ed when given, else points at default_T */
     size_t nT;
@@ -437,8 +483,8 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
         int k;
         if (only_names || arg[0] != '-' || arg[1] == '\0') {
             if (cmd == CMD_LIST) {
-                usage_error("'molq list' takes no species names (got '%s')%s",
-                            arg, "");
+                usage_error("'molq %s' takes no species names (got '%s')",
+                            o->word, arg);
                 return EXIT_USAGE;
             }
             o->names[o->nnames++] = arg;
@@ -459,13 +505,12 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
                 strncmp(opt_table[k].name, arg, len) == 0)
                 break;
         if (k == N_OPTS) {
-            usage_error("unknown option '%s' for 'molq %s'", arg,
-                        cmd_name[cmd]);
+            usage_error("unknown option '%s' for 'molq %s'", arg, o->word);
             return EXIT_USAGE;
         }
         if (!(opt_table[k].commands & (1u << cmd))) {
             usage_error("option %s does not apply to 'molq %s'",
-                        opt_table[k].name, cmd_name[cmd]);
+                        opt_table[k].name, o->word);
             return EXIT_USAGE;
         }
         if (given[k]) {
@@ -554,7 +599,7 @@ static int parse_options(int cmd, int argc, char **argv, options *o)
     }
     if (!o->help && cmd != CMD_LIST && o->nnames == 0) {
         usage_error("'molq %s' needs at least one species name%s",
-                    cmd_name[cmd], "");
+                    o->word, "");
         return EXIT_USAGE;
     }
     return 0;
@@ -1470,16 +1515,91 @@ static int cmd_spin(const options *o, const molq_species **sp,
 /* molq list                                                                */
 /* ------------------------------------------------------------------------ */
 
+/* Longest source summary of `molq list`, in characters (code points). */
+#define SUMMARY_MAX 60
+
+/* The one-line source summary of `molq list` (text, csv source_summary,
+ * json "source_summary"), the rule README.md "Command-line tool" states:
+ * - the first clause of the source: the text before its first ';' that
+ *   is outside parentheses and brackets (a ';' inside "(...)" does not
+ *   end it);
+ * - every run of ASCII white space and control characters (bytes up to
+ *   0x20, and 0x7f) becomes one space,
+ *   and leading and trailing spaces go;
+ * - a clause of more than SUMMARY_MAX characters (UTF-8 code points) is
+ *   cut at the last space within its first SUMMARY_MAX - 3 characters
+ *   (at that length when there is none), trailing spaces, commas and
+ *   colons are dropped and "..." is appended, so the summary has at most
+ *   SUMMARY_MAX characters and never splits a character.
+ * `buf` needs 4 * SUMMARY_MAX + 1 bytes; "" for an empty source. */
+static void source_summary(const char *src, char *buf, size_t len)
+{
+    size_t n = 0, cps = 0, cut = 0, i;
+    int depth = 0, space = 0, over = 0;
+    const unsigned char *p;
+    for (p = (const unsigned char *)src; *p != '\0' && !over; p++) {
+        unsigned char c = *p;
+        if (c == '(' || c == '[')
+            depth++;
+        else if ((c == ')' || c == ']') && depth > 0)
+            depth--;
+        else if (c == ';' && depth == 0)
+            break;
+        if (c <= ' ' || c == 0x7f) {
+            space = 1;
+            continue;
+        }
+        /* Emit a pending space, then c; both start a code point, except a
+         * UTF-8 continuation byte. */
+        for (i = (space && n > 0) ? 0 : 1; i < 2; i++) {
+            unsigned char b = i == 0 ? ' ' : c;
+            if ((b & 0xC0) != 0x80) {
+                if (cps == SUMMARY_MAX - 3)
+                    cut = n;
+                if (cps == SUMMARY_MAX) {
+                    over = 1;
+                    break;
+                }
+                cps++;
+            }
+            if (n + 4 >= len) { /* cannot happen with valid UTF-8 */
+                over = 1;
+                break;
+            }
+            buf[n++] = (char)b;
+        }
+        space = 0;
+    }
+    if (over) {
+        size_t end = cut;
+        for (i = cut; i > 0; i--)
+            if (buf[i - 1] == ' ') {
+                end = i - 1;
+                break;
+            }
+        while (end > 0 && (buf[end - 1] == ' ' || buf[end - 1] == ',' ||
+                           buf[end - 1] == ':'))
+            end--;
+        memcpy(buf + end, "...", 3);
+        n = end + 3;
+    }
+    buf[n] = '\0';
+}
+
 typedef struct entry {
     const molq_species *sp;
     const char *set; /* "file", "built-in" or "built-in (hidden by file)" */
+    char summary[4 * SUMMARY_MAX + 1];
+    char range[64]; /* "100-6000" (K), "-" when the data state none */
+    int has_range;
+    double t_low, t_high;
 } entry;
 
 static int cmd_list(const options *o, const sets *s)
 {
     size_t nu = molq_db_count(s->user), nb = molq_db_count(s->builtin);
-    size_t n = 0, i, wn = 4, wf = 7, ws = 8, wm = 5;
-    entry *e = malloc((nu + nb) * sizeof *e);
+    size_t n = 0, i, wn = 4, wf = 7, ws = 3, wm = 5, wr = 11;
+    entry *e = malloc((nu + nb + 1) * sizeof *e);
     const molq_species *dummy;
     int rc = 0;
     if (e == NULL) {
@@ -1499,12 +1619,25 @@ static int cmd_list(const options *o, const sets *s)
                        : "built-in";
         n++;
     }
+    for (i = 0; i < n; i++) {
+        source_summary(molq_species_source(e[i].sp), e[i].summary,
+                       sizeof e[i].summary);
+        e[i].has_range = molq_species_validated_range(
+                             e[i].sp, &e[i].t_low, &e[i].t_high) == MOLQ_OK;
+        if (e[i].has_range)
+            snprintf(e[i].range, sizeof e[i].range, "%.10g-%.10g",
+                     e[i].t_low, e[i].t_high);
+        else
+            snprintf(e[i].range, sizeof e[i].range, "-");
+    }
 
     if (o->format == FMT_JSON) {
         jctx j = {0};
         json_t *root = jcheck(&j, json_object()), *list;
         json_t *units = jcheck(&j, json_object());
         jset(&j, units, "molar_mass", json_string("g/mol"));
+        jset(&j, units, "charge", json_string("e"));
+        jset(&j, units, "validated_range", json_string("K"));
         jset(&j, root, "units", units);
         list = jcheck(&j, json_array());
         jset(&j, root, "species", list);
@@ -1513,6 +1646,8 @@ static int cmd_list(const options *o, const sets *s)
             jappend(&j, list, x);
             jset(&j, x, "name", json_string(molq_species_name(e[i].sp)));
             jset(&j, x, "formula", json_string(molq_species_formula(e[i].sp)));
+            jset(&j, x, "charge",
+                 json_integer(molq_species_charge(e[i].sp)));
             jset(&j, x, "structure", json_string(structure_of(e[i].sp)));
             jset(&j, x, "model",
                  json_string(model_name(molq_species_model(e[i].sp))));
@@ -1520,26 +1655,46 @@ static int cmd_list(const options *o, const sets *s)
                  json_real(molq_species_molar_mass_g_per_mol(e[i].sp)));
             jset(&j, x, "has_formation_enthalpy",
                  json_boolean(molq_species_has_formation_enthalpy(e[i].sp)));
+            if (e[i].has_range) {
+                json_t *r = jcheck(&j, json_array());
+                jappend(&j, r, json_real(e[i].t_low));
+                jappend(&j, r, json_real(e[i].t_high));
+                jset(&j, x, "validated_range", r);
+            } else {
+                jset(&j, x, "validated_range", json_null());
+            }
             jset(&j, x, "set", json_string(e[i].set));
+            jset(&j, x, "source_summary", json_string(e[i].summary));
             jset(&j, x, "source", json_string(molq_species_source(e[i].sp)));
         }
         free(e);
         return json_finish(&j, root);
     }
     if (o->format == FMT_CSV) {
-        puts("name,formula,structure,model,molar_mass,formation_enthalpy,set,"
-             "source");
+        puts("name,formula,charge,structure,model,molar_mass,"
+             "formation_enthalpy,t_low,t_high,set,source_summary,source");
         for (i = 0; i < n; i++) {
             csv_field(molq_species_name(e[i].sp));
             putchar(',');
             csv_field(molq_species_formula(e[i].sp));
-            printf(",%s,%s,", structure_of(e[i].sp),
+            printf(",%d,%s,%s,", molq_species_charge(e[i].sp),
+                   structure_of(e[i].sp),
                    model_name(molq_species_model(e[i].sp)));
             csv_number(molq_species_molar_mass_g_per_mol(e[i].sp));
             printf(",%s,", molq_species_has_formation_enthalpy(e[i].sp)
                                ? "yes"
                                : "no");
+            if (e[i].has_range) {
+                csv_number(e[i].t_low);
+                putchar(',');
+                csv_number(e[i].t_high);
+            } else {
+                putchar(','); /* both empty: the data state no range */
+            }
+            putchar(',');
             csv_field(e[i].set);
+            putchar(',');
+            csv_field(e[i].summary);
             putchar(',');
             csv_field(molq_species_source(e[i].sp));
             putchar('\n');
@@ -1552,26 +1707,33 @@ static int cmd_list(const options *o, const sets *s)
         size_t b = strlen(molq_species_formula(e[i].sp));
         size_t c = strlen(e[i].set);
         size_t d = strlen(model_name(molq_species_model(e[i].sp)));
+        size_t r = strlen(e[i].range);
         wm = d > wm ? d : wm;
         wn = a > wn ? a : wn;
         wf = b > wf ? b : wf;
         ws = c > ws ? c : ws;
+        wr = r > wr ? r : wr;
     }
     if (wn > 40)
         wn = 40;
     if (wf > 40)
         wf = 40;
-    printf("%-*s  %-*s  %-9s  %-*s  %12s  %-4s  %-*s  %s\n", (int)wn,
-           "name", (int)wf, "formula", "structure", (int)wm, "model",
-           "M g/mol", "dfH", (int)ws, "set", "source");
-    for (i = 0; i < n; i++)
-        printf("%-*s  %-*s  %-9s  %-*s  %12.8g  %-4s  %-*s  %s\n", (int)wn,
-               molq_species_name(e[i].sp), (int)wf,
-               molq_species_formula(e[i].sp), structure_of(e[i].sp), (int)wm,
-               model_name(molq_species_model(e[i].sp)),
+    printf("%-*s  %-*s  %6s  %-9s  %-*s  %12s  %-4s  %-*s  %-*s  %s\n",
+           (int)wn, "name", (int)wf, "formula", "charge", "structure",
+           (int)wm, "model", "M g/mol", "dfH", (int)wr, "validated K",
+           (int)ws, "set", "source (first clause)");
+    for (i = 0; i < n; i++) {
+        int q = molq_species_charge(e[i].sp);
+        char charge[16];
+        snprintf(charge, sizeof charge, q != 0 ? "%+d" : "%d", q);
+        printf("%-*s  %-*s  %6s  %-9s  %-*s  %12.8g  %-4s  %-*s  %-*s  %s\n",
+               (int)wn, molq_species_name(e[i].sp), (int)wf,
+               molq_species_formula(e[i].sp), charge, structure_of(e[i].sp),
+               (int)wm, model_name(molq_species_model(e[i].sp)),
                molq_species_molar_mass_g_per_mol(e[i].sp),
                molq_species_has_formation_enthalpy(e[i].sp) ? "yes" : "no",
-               (int)ws, e[i].set, molq_species_source(e[i].sp));
+               (int)wr, e[i].range, (int)ws, e[i].set, e[i].summary);
+    }
     if (s->path != NULL)
         printf("\n'file' species come from %s; names are looked up there "
                "first.\n", s->path);
@@ -1676,8 +1838,17 @@ static int cmd_show(const options *o, const molq_species *const *sp,
                 printf("%s%s", k ? ", " : "", molq_mode_kind_name(kind));
         }
         printf("\n  source            %s\n", molq_species_source(sp[i]));
+        /* The checks are the library's (molq.h, molq_species_warning_count);
+         * each finding is one warning naming the field. */
         if (nw == 0)
-            printf("  data checks       no warnings\n");
+            printf("  data checks       no warnings from the checks that apply "
+                   "(molar mass\n"
+                   "                    against the formula; for diatomic "
+                   "states the\n"
+                   "                    plausibility of De, alpha_e, "
+                   "we^2/(4 wexe), Be against\n"
+                   "                    re, D0 against the atoms' formation "
+                   "enthalpies)\n");
         for (k = 0; k < nw; k++)
             printf("  %s %s\n", k ? "                 " : "warning          ",
                    molq_species_warning(sp[i], k));
@@ -1757,12 +1928,11 @@ int main(int argc, char **argv)
         }
         if (strcmp(argv[1], "help") == 0 && argc > 2 &&
             strcmp(argv[2], "help") != 0) {
-            for (cmd = 0; cmd < N_CMDS; cmd++)
-                if (strcmp(argv[2], cmd_name[cmd]) == 0)
-                    break;
+            cmd = find_command(argv[2]);
             if (cmd == N_CMDS) {
                 usage_error("help: unknown command '%s' (nearest: '%s'; the "
-                            "commands are table, modes, spin and list)",
+                            "commands are table, modes, spin, list (or "
+                            "species) and show)",
                             argv[2], nearest_command(argv[2]));
                 return EXIT_USAGE;
             }
@@ -1777,21 +1947,20 @@ int main(int argc, char **argv)
                molq_version_string());
         return finish_output(0);
     }
-    for (cmd = 0; cmd < N_CMDS; cmd++)
-        if (strcmp(argv[1], cmd_name[cmd]) == 0)
-            break;
+    cmd = find_command(argv[1]);
     if (cmd == N_CMDS) {
         if (argv[1][0] == '-')
             usage_error("unknown option '%s'%s", argv[1], "");
         else
             usage_error("unknown command '%s' (nearest: '%s'; use table, "
-                        "modes, spin, list, show or help)",
+                        "modes, spin, list or species, show or help)",
                         argv[1], nearest_command(argv[1]));
         return EXIT_USAGE;
     }
 
     memset(&o, 0, sizeof o);
     o.cmd = cmd;
+    o.word = argv[1];
     o.p = MOLQ_P_STANDARD;
     o.format = FMT_TEXT;
     o.model = -1;

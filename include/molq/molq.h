@@ -803,24 +803,35 @@ MOLQ_API molq_status molq_db_read_string(const char *json, size_t len,
 MOLQ_API molq_status molq_db_builtin(molq_db **out, char *err,
                                      size_t errlen);
 
-/* Free a database and every species borrowed from it.  Accepts NULL. */
+/* Free a database and every species borrowed from it.  Accepts NULL.  Not
+ * while another thread still uses the database or one of its species.
+ * Added in 0.1.0. */
 MOLQ_API void molq_db_free(molq_db *db);
 
-/* @return the number of species (0 if db is NULL).  Added in 0.1.0. */
+/* @return the number of species (0 if db is NULL).  Thread-safe.
+ *         Added in 0.1.0. */
 MOLQ_API size_t molq_db_count(const molq_db *db);
 
-/* @return species `index` in file order, borrowed (valid until
- *         molq_db_free), or NULL if the index is out of range. */
+/* Enumerate with index 0 .. molq_db_count(db) - 1.
+ * @return species `index` in file order, borrowed (valid until
+ *         molq_db_free), or NULL if the index is out of range or db is
+ *         NULL.  Thread-safe.  Added in 0.1.0. */
 MOLQ_API const molq_species *molq_db_species(const molq_db *db, size_t index);
 
-/* Find a species by exact name.  *out is borrowed (valid until molq_db_free).
- * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
+/* Find a species by exact name (case-sensitive).  *out is borrowed (valid
+ * until molq_db_free) and untouched on failure.
+ * @return MOLQ_OK, MOLQ_EARG (a NULL argument), MOLQ_ENOTFOUND.
+ * Thread-safe.  Added in 0.1.0. */
 MOLQ_API molq_status molq_db_find(const molq_db *db, const char *name,
                                   const molq_species **out);
 
 /* Find the first species (in file order) whose formula is exactly
- * `formula` (as given, e.g. "CO2"; no normalisation).  *out is borrowed.
- * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
+ * `formula` (as given, e.g. "CO2", "N2+", "e-"; case-sensitive, no
+ * normalisation: "OC" is not "CO").  "" finds nothing (a species without
+ * a formula is never found by formula).  *out is borrowed (valid until
+ * molq_db_free) and untouched on failure.
+ * @return MOLQ_OK, MOLQ_EARG (a NULL argument), MOLQ_ENOTFOUND.
+ * Thread-safe.  Added in 0.1.0. */
 MOLQ_API molq_status molq_db_find_formula(const molq_db *db,
                                           const char *formula,
                                           const molq_species **out);

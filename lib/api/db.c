@@ -385,5 +385,9 @@ const char *molq_db_warning(const molq_db *db, size_t index)
 molq_status molq_db_find_formula(const molq_db *db, const char *formula,
                                  const molq_species **out)
 {
+    /* "" is what molq_species_formula reports for a species without a
+     * formula; it is no formula and finds nothing. */
+    if (db != NULL && formula != NULL && out != NULL && formula[0] == '\0')
+        return MOLQ_ENOTFOUND;
     return find_by(db, formula, 1, out);
 }

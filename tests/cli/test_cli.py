@@ -55,7 +55,7 @@ MODELS = ["rrho", "levels"]
 DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
 BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "C", "F", "S", "H2", "N2", "O2", "CO", "NO", "OH", "HF", "HCl",
            "Cl2", "F2", "SO", "CN", "CH", "NH", "e-", "N+", "O+", "N2+", "O2+", "NO+", "CO2", "H2O",
-           "C2H6", "NH3", "CH4",
+           "C2H6", "NH3", "CH4", "H2O2", "CH3", "CH2O", "C2H2", "C2H4",
            "N2O",
            "NO2",
            "SO2",
@@ -667,6 +667,10 @@ BAD_ARGS = [
                                             "unknown format"]),
     (["table", "Qq"], 1, ["unknown species", "'Qq'", "built-in"]),
     (["table", "N2", "n2"], 1, ["unknown species", "'n2'"]),
+    # Regression: an empty word is no species and no formula (it used to
+    # find the file's first species without a formula, demo-bent).
+    (["show", "", "--data", DEMO], 1, ["unknown species", "''"]),
+    (["table", "", "--data", DEMO], 1, ["unknown species", "''"]),
     (["table", "demo-nothing", "--data", str(DEMO)], 1,
      ["unknown species", "'demo-nothing'", str(DEMO), "built-in"]),
     (["table", "N2", "--data", str(DATA / "no_such_file.json")], 1,
@@ -963,10 +967,10 @@ class BuiltinFormats(unittest.TestCase):
         for n in BUILTIN:
             self.assertIn(info[n]["model"], MODELS)
         text = run_ok(self, "list")
-        self.assertEqual(text.splitlines()[0].split()[:4],
-                         ["name", "formula", "structure", "model"])
-        self.assertRegex(text, r"(?m)^N2\s+N2\s+linear\s+levels\s")
-        self.assertRegex(text, r"(?m)^Ar\s+Ar\s+atom\s+rrho\s")
+        self.assertEqual(text.splitlines()[0].split()[:5],
+                         ["name", "formula", "charge", "structure", "model"])
+        self.assertRegex(text, r"(?m)^N2\s+N2\s+0\s+linear\s+levels\s")
+        self.assertRegex(text, r"(?m)^Ar\s+Ar\s+0\s+atom\s+rrho\s")
         self.assertIn("JANAF", info["CO2"]["source"])
         # csv: the quoted source with commas survives.
         rows = list(csv.DictReader(io.StringIO(
@@ -1352,6 +1356,182 @@ class LevelsFile(unittest.TestCase):
         self.assertEqual(doc["species"][0]["modes"],
                          ["translation", "rotation", "vibration",
                           "electronic"])
+
+
+SPECIES_DIR = Path(__file__).resolve().parents[2] / "data" / "species"
+LIST_SOURCES = DATA / "list_sources.json"
+LIST_CSV_HEADER = ["name", "formula", "charge", "structure", "model",
+                   "molar_mass", "formation_enthalpy", "t_low", "t_high",
+                   "set", "source_summary", "source"]
+
+
+def species_files():
+    """name -> entry of every built-in species, read from the species
+    files themselves (data/species/*.json), not through molq."""
+    out = {}
+    for path in sorted(SPECIES_DIR.glob("*.json")):
+        with open(path, encoding="utf-8") as f:
+            for entry in json.load(f)["species"]:
+                out[entry["name"]] = entry
+    return out
+
+
+def charge_of(formula):
+    """Charge written at the end of a formula, one sign per elementary
+    charge: 'N2+' +1, 'e-' -1, 'CO2' 0 (common practice for ion
+    formulas, the one the species files use)."""
+    tail = formula[len(formula.rstrip("+-")):]
+    return tail.count("+") - tail.count("-")
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class ListColumns(unittest.TestCase):
+    """`molq list` (and `molq species`) show charge, validated range and
+    a one-line source summary in text, csv and json.  Expected values come
+    from the species files (data/species/*.json: the electron's formula
+    'e-', N2's "validated_range" [100, 6000] in diatomics.json) and from
+    the invented file tests/cli/data/list_sources.json, whose summaries
+    are worked out by hand below from the documented rule (molq help list:
+    first clause up to ';' outside parentheses, white space runs made one
+    space, cut at a word to at most 60 characters with '...')."""
+
+    # Hand-worked summaries of list_sources.json (INVENTED sources).
+    SUMMARY = {
+        "src-short": "short source",
+        "src-paren": "Smith (1999; table 3) measured",
+        "src-space": "two lines here",
+        # 66-character clause: its first 57 characters end with the space
+        # after 'kappa'; cut there.
+        "src-long": "alpha beta gamma delta epsilon zeta eta theta iota "
+                    "kappa...",
+        # No space: cut after 57 characters.
+        "src-nospace": "x" * 57 + "...",
+        # The cut leaves 'eleven,': the comma goes.
+        "src-comma": "one two three four five six seven eight nine ten "
+                     "eleven...",
+        # Exactly 60 characters stay whole; 61 are cut at a word.
+        "src-60": "abcdefghi abcdefghi abcdefghi abcdefghi abcdefghi "
+                  "abcdefghij",
+        "src-61": "abcdefghi abcdefghi abcdefghi abcdefghi abcdefghi...",
+        # Counted in characters, not bytes (each word is 8 characters,
+        # 10 bytes): five words and a sixth before the cut at 57.
+        "src-utf8": " ".join(["\u00c5ngstr\u00f6m"] * 6) + "...",
+        "src-none": "",
+        "cation": "invented singly charged cation",
+        "anion": "invented singly charged anion",
+    }
+
+    def test_builtin_charge_and_range_against_species_files(self):
+        files = species_files()
+        doc = json.loads(run_ok(self, "list", "--format", "json"))
+        self.assertEqual(doc["units"]["validated_range"], "K")
+        self.assertEqual(doc["units"]["charge"], "e")
+        got = {s["name"]: s for s in doc["species"]}
+        self.assertEqual(sorted(got), sorted(files))
+        for name, entry in files.items():
+            with self.subTest(name=name):
+                g = got[name]
+                self.assertEqual(g["formula"], entry["formula"])
+                self.assertEqual(g["charge"], charge_of(entry["formula"]))
+                want = entry.get("validated_range")
+                self.assertEqual(g["validated_range"],
+                                 None if want is None
+                                 else [float(x) for x in want])
+                self.assertEqual(g["source"], entry.get("source", ""))
+                self.assertLessEqual(len(g["source_summary"]), 60)
+                self.assertNotIn("\n", g["source_summary"])
+                # The summary is the start of the source (before any cut).
+                head = g["source_summary"]
+                if head.endswith("..."):
+                    head = head[:-3]
+                self.assertTrue(" ".join(entry["source"].split())
+                                .startswith(head), head)
+        # The named cases: the electron gas and nitrogen.
+        self.assertEqual(got["e-"]["charge"], -1)
+        self.assertEqual(got["N2"]["charge"], 0)
+        self.assertEqual(got["N2"]["validated_range"], [100.0, 6000.0])
+        self.assertEqual(files["N2"]["validated_range"], [100, 6000])
+
+    def test_csv_equals_json(self):
+        doc = json.loads(run_ok(self, "list", "--data", LIST_SOURCES,
+                                "--format", "json"))["species"]
+        rows = csv_rows(run_ok(self, "list", "--data", LIST_SOURCES,
+                               "--format", "csv"))
+        self.assertEqual(rows[0], LIST_CSV_HEADER)
+        self.assertEqual(len(rows) - 1, len(doc))
+        for row, js in zip(rows[1:], doc):
+            r = dict(zip(LIST_CSV_HEADER, row))
+            with self.subTest(name=js["name"]):
+                self.assertEqual(r["name"], js["name"])
+                self.assertEqual(int(r["charge"]), js["charge"])
+                if js["validated_range"] is None:
+                    self.assertEqual((r["t_low"], r["t_high"]), ("", ""))
+                else:
+                    self.assertEqual([float(r["t_low"]), float(r["t_high"])],
+                                     js["validated_range"])
+                self.assertEqual(r["source_summary"], js["source_summary"])
+                self.assertEqual(r["source"], js["source"])
+        by_name = {r[0]: dict(zip(LIST_CSV_HEADER, r)) for r in rows[1:]}
+        self.assertEqual(by_name["e-"]["charge"], "-1")
+        self.assertEqual((by_name["N2"]["t_low"], by_name["N2"]["t_high"]),
+                         ("100", "6000"))
+
+    def test_summary_rule(self):
+        doc = json.loads(run_ok(self, "list", "--data", LIST_SOURCES,
+                                "--format", "json"))["species"]
+        got = {s["name"]: s for s in doc if s["set"] == "file"}
+        self.assertEqual({n: got[n]["source_summary"] for n in self.SUMMARY},
+                         self.SUMMARY)
+        self.assertEqual(got["cation"]["charge"], 1)
+        self.assertEqual(got["anion"]["charge"], -1)
+        self.assertEqual(got["src-short"]["validated_range"], [200.0, 1500.5])
+        self.assertIsNone(got["src-paren"]["validated_range"])
+
+    def test_text_columns(self):
+        text = run_ok(self, "list", "--data", LIST_SOURCES)
+        lines = text.splitlines()
+        self.assertEqual(lines[0].split()[:5],
+                         ["name", "formula", "charge", "structure", "model"])
+        self.assertIn("validated K", lines[0])
+        self.assertIn("source (first clause)", lines[0])
+        self.assertRegex(text, r"(?m)^e-\s+e-\s+-1\s+atom\s+rrho\s.*"
+                               r"\s298\.15-6000\s+built-in\s+the electron "
+                               r"gas: translation and spin \(degeneracy 2\) "
+                               r"only$")
+        self.assertRegex(text, r"(?m)^N2\s+N2\s+0\s+linear\s+levels\s.*"
+                               r"\s100-6000\s+built-in\s+Huber")
+        self.assertRegex(text, r"(?m)^cation\s+Ar\+\s+\+1\s.*\s300-3000\s")
+        self.assertRegex(text, r"(?m)^src-paren\s.*\s-\s+file\s+"
+                               r"Smith \(1999; table 3\) measured$")
+        for name, summary in self.SUMMARY.items():
+            if summary:
+                self.assertRegex(text, r"(?m)^%s\s.*\s%s$"
+                                 % (re.escape(name), re.escape(summary)))
+        # A header and one line per species, then the note on the file.
+        self.assertEqual(len(lines), 1 + len(species_files()) +
+                         len(self.SUMMARY) + 2)  # blank + note on the file
+
+    def test_species_is_list(self):
+        for args in ([], ["--format", "csv"], ["--format", "json"],
+                     ["--data", str(LIST_SOURCES)]):
+            with self.subTest(args=args):
+                self.assertEqual(run_ok(self, "species", *args),
+                                 run_ok(self, "list", *args))
+        self.assertEqual(run_ok(self, "help", "species"),
+                         run_ok(self, "help", "list"))
+        self.assertEqual(run_ok(self, "species", "--help"),
+                         run_ok(self, "list", "--help"))
+        self.assertIn("molq species", run_ok(self, "--help"))
+        rc, out, err = run("species", "N2")
+        self.assertEqual(rc, 2)
+        self.assertIn("'molq species' takes no species names (got 'N2')",
+                      err)
+        rc, out, err = run("species", "--T", "300")
+        self.assertEqual(rc, 2)
+        self.assertIn("does not apply to 'molq species'", err)
+        rc, out, err = run("specis")
+        self.assertEqual(rc, 2)
+        self.assertIn("nearest: 'species'", err)
 
 
 if __name__ == "__main__":

@@ -396,5 +396,86 @@ class ShowAndFormulaLookup(unittest.TestCase):
         self.assertTrue(out.startswith("Usage: molq show"), out)
 
 
+SPECIES_DIR = DATA.parent.parent.parent / "data" / "species"
+SHOW_CHECKS = DATA / "show_checks.json"
+
+
+def species_entry(name):
+    """The entry of built-in species `name`, read from data/species/*.json
+    directly (not through molq)."""
+    for path in sorted(SPECIES_DIR.glob("*.json")):
+        with open(path, encoding="utf-8") as f:
+            for entry in json.load(f)["species"]:
+                if entry["name"] == name:
+                    return entry
+    raise KeyError(name)
+
+
+@unittest.skipIf(not CLI, "MOLQ_CLI is not set")
+class ShowRangeAndChecks(unittest.TestCase):
+    """molq show prints the validated range and the results of the data
+    checks (molar mass against the formula, plausibility of diatomic
+    constants) in text and json.  Expected ranges come from the species
+    files (N2: data/species/diatomics.json, e-: ions.json); the Kratzer
+    estimate De = 4 Be^3/we^2 (common practice, any text on diatomic
+    spectra) is computed here from the invented file's constants."""
+
+    def test_validated_range_from_species_files(self):
+        for name in ("N2", "e-"):
+            with self.subTest(name=name):
+                lo, hi = species_entry(name)["validated_range"]
+                text, _ = run_ok(self, "show", name)
+                self.assertIn("\n  validated range   %g K to %g K\n"
+                              % (lo, hi), text)
+                doc = json.loads(run_ok(self, "show", name, "--format",
+                                        "json")[0])["species"][0]
+                self.assertEqual(doc["validated_range"],
+                                 [float(lo), float(hi)])
+        text, _ = run_ok(self, "show", "N2")
+        self.assertIn("validated range   100 K to 6000 K", text)
+
+    def test_no_range(self):
+        text, _ = run_ok(self, "show", "no-range", "--data", SHOW_CHECKS)
+        self.assertIn("\n  validated range   (not stated by the data)\n",
+                      text)
+        doc = json.loads(run_ok(self, "show", "no-range", "--data",
+                                SHOW_CHECKS, "--format", "json")[0])
+        self.assertNotIn("validated_range", doc["species"][0])
+
+    def test_clean_species_says_what_was_checked(self):
+        text, _ = run_ok(self, "show", "N2")
+        flat = " ".join(text.split())
+        self.assertIn("data checks no warnings from the checks that apply "
+                      "(molar mass against the formula; for diatomic states "
+                      "the plausibility of De, alpha_e, we^2/(4 wexe), Be "
+                      "against re, D0 against the atoms' formation "
+                      "enthalpies)", flat)
+        self.assertNotIn("\n  warning ", text)
+        doc = json.loads(run_ok(self, "show", "N2", "--format", "json")[0])
+        self.assertEqual(doc["species"][0]["warnings"], [])
+
+    def test_plausibility_finding(self):
+        we, be, de = 2358.57, 1.99824, 5.7e-7  # show_checks.json, slip-N2
+        ratio = de / (4.0 * be ** 3 / we ** 2)
+        self.assertAlmostEqual(ratio, 0.099, delta=0.001)
+        text, err = run_ok(self, "show", "slip-N2", "--data", SHOW_CHECKS)
+        self.assertIn("\n  validated range   300 K to 2500 K\n", text)
+        self.assertRegex(text, r"\n  warning +species 'slip-N2': field "
+                               r"'diatomic_states\[0\]\.De': 5\.7e-07 cm\^-1 "
+                               r"is %s x the Kratzer estimate"
+                               % re.escape("%.2g" % ratio))
+        self.assertNotIn("no warnings", text)
+        # The same finding on stderr, as for every file species.
+        self.assertIn("molq: warning: %s: species 'slip-N2': field "
+                      "'diatomic_states[0].De'" % SHOW_CHECKS, err)
+        doc = json.loads(run_ok(self, "show", "slip-N2", "--data",
+                                SHOW_CHECKS, "--format", "json")[0])
+        sp = doc["species"][0]
+        self.assertEqual(sp["validated_range"], [300.0, 2500.0])
+        self.assertEqual(len(sp["warnings"]), 1, sp["warnings"])
+        self.assertIn("'diatomic_states[0].De'", sp["warnings"][0])
+        self.assertIn("Kratzer", sp["warnings"][0])
+
+
 if __name__ == "__main__":
     unittest.main()

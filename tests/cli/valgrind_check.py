@@ -21,6 +21,12 @@ CASES = [
       str(DATA / "demo_species.json"), "--format", "json", "--per-mass"], 0),
     (["modes", "O2", "H2O", "--format", "text"], 0),
     (["list", "--data", str(DATA / "demo_species.json")], 0),
+    # Source summaries (cut at a word, UTF-8) in every format.
+    (["species", "--data", str(DATA / "list_sources.json")], 0),
+    (["list", "--data", str(DATA / "list_sources.json"), "--format", "csv"],
+     0),
+    (["list", "--data", str(DATA / "list_sources.json"), "--format",
+      "json"], 0),
     (["table", "x", "--data", str(DATA / "bad" / "malformed.json")], 1),
     (["table", "x", "--data", str(DATA / "bad" / "rot_order.json")], 1),
     (["table", "Qq", "--data", str(DATA / "demo_species.json")], 1),

@@ -133,12 +133,21 @@ def _fail(status, buf, fallback):
 
 
 def _encode_name(text, what):
+    """A lookup key as the C string the library compares, or None when no
+    name or formula can equal it: a key holding a NUL (ctypes would pass
+    only the text before it, so "C\\0O2" would find "C") or a str that is
+    not encodable as UTF-8 (a lone surrogate; names are UTF-8)."""
     if isinstance(text, bytes):
-        return text
-    if not isinstance(text, str):
+        raw = text
+    elif not isinstance(text, str):
         raise TypeError("%s must be a str, not %s" % (what,
                                                       type(text).__name__))
-    return text.encode("utf-8")
+    else:
+        try:
+            raw = text.encode("utf-8")
+        except UnicodeEncodeError:
+            return None
+    return None if b"\0" in raw else raw
 
 
 # ---------------------------------------------------------------------------
@@ -1639,9 +1648,11 @@ class Database(_Immutable):
         """The species called `name`, or None."""
         if not isinstance(name, (str, bytes)):
             return None
+        key = _encode_name(name, "name")
+        if key is None:
+            return None
         out = ctypes.c_void_p()
-        status = _L.molq_db_find(self._ptr, _encode_name(name, "name"),
-                                 ctypes.byref(out))
+        status = _L.molq_db_find(self._ptr, key, ctypes.byref(out))
         if status == ENOTFOUND:
             return None
         if status != 0:
@@ -1656,12 +1667,14 @@ class Database(_Immutable):
 
     def by_formula(self, formula, default=None):
         """The first species (in file order) whose formula is exactly
-        `formula` (as written in the data, e.g. "CO2", "N2+"), or `default`
-        when none has it."""
+        `formula` (as written in the data, e.g. "CO2", "N2+"; exact text,
+        case-sensitive), or `default` when none has it ("" and a text
+        holding a NUL find nothing).  TypeError unless str or bytes."""
+        key = _encode_name(formula, "formula")
+        if key is None:
+            return default
         out = ctypes.c_void_p()
-        status = _L.molq_db_find_formula(self._ptr,
-                                         _encode_name(formula, "formula"),
-                                         ctypes.byref(out))
+        status = _L.molq_db_find_formula(self._ptr, key, ctypes.byref(out))
         if status == ENOTFOUND:
             return default
         if status != 0:
