@@ -54,7 +54,7 @@ CSV_HEADER_MODEL = CSV_HEADER_COMPARE
 MODELS = ["rrho", "levels"]
 DEFAULT_T = [298.15, 300, 400, 500, 600, 800, 1000, 1500, 2000, 2500, 3000]
 BUILTIN = ["Ar", "O", "N", "Cl", "He", "Ne", "Kr", "Xe", "H", "C", "F", "S", "H2", "N2", "O2", "CO", "NO", "OH", "HF", "HCl",
-           "Cl2", "F2", "SO", "CN", "CH", "NH", "e-", "N+", "O+", "N2+", "CO2", "H2O",
+           "Cl2", "F2", "SO", "CN", "CH", "NH", "e-", "N+", "O+", "N2+", "O2+", "NO+", "CO2", "H2O",
            "C2H6", "NH3", "CH4", "H2O2", "CH3", "CH2O", "C2H2", "C2H4",
            "N2O",
            "NO2",
