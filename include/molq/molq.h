@@ -107,7 +107,9 @@ typedef enum molq_status {
                             molq_species_t_min), or so extreme that a
                             result would overflow a double.  MOLQ_OK always
                             comes with finite numbers. */
-    MOLQ_ELIMIT = 12     /* input exceeds a documented size limit */
+    MOLQ_ELIMIT = 12,    /* input exceeds a documented size limit */
+    MOLQ_ENOCONV = 13    /* an iteration did not converge within its
+                            limit (molq_mixture_temperature) */
 } molq_status;
 
 /* @return a static English description of a status code (never NULL; an
@@ -873,6 +875,250 @@ MOLQ_API size_t molq_db_warning_count(const molq_db *db);
  *         until molq_db_free), or NULL when out of range or db is NULL.
  *         Thread-safe.  Added in 0.1.0. */
 MOLQ_API const char *molq_db_warning(const molq_db *db, size_t index);
+
+/* ------------------------------------------------------------------------ */
+/* Mixtures: many species per cell, batch properties, T from h, u or s      */
+/* ------------------------------------------------------------------------ */
+
+/* An immutable ordered list of species (the caller's order) with what it
+ * precomputes (molar masses, temperature bounds, the evaluation method).
+ * Built once, shareable across threads without locks; every evaluation
+ * call is thread-safe on a shared mixture, allocates nothing and touches
+ * no global state.  The mixture BORROWS its species: they (and the
+ * database they came from) must outlive it.  Added in 0.1.0. */
+typedef struct molq_mixture_s molq_mixture;
+
+/* Creation options (a mutable builder, not thread-safe while being set;
+ * a NULL config everywhere means the defaults given below).  The mixture
+ * copies what it needs: the config may be freed right after creation.
+ * Added in 0.1.0. */
+typedef struct molq_mix_config_s molq_mix_config;
+
+/* How a mixture evaluates its species.  Values never change; new methods
+ * (the tabulated fast path) are appended, and every evaluation call works
+ * with any method.  Added in 0.1.0. */
+typedef enum molq_mix_method {
+    MOLQ_MIX_EXACT = 0 /* the species' own model at every call (default) */
+} molq_mix_method;
+
+/* What a composition array holds.  Added in 0.1.0. */
+typedef enum molq_basis {
+    MOLQ_MOLE_FRACTIONS = 0,
+    MOLQ_MASS_FRACTIONS = 1
+} molq_basis;
+
+/* Per mole of mixture (J/mol, J/(mol K)) or per kilogram (J/kg,
+ * J/(kg K)).  Added in 0.1.0. */
+typedef enum molq_per {
+    MOLQ_PER_MOLE = 0,
+    MOLQ_PER_MASS = 1
+} molq_per;
+
+/* Mixture properties.  Values never change; new ones are appended.
+ * Extensive ones follow molq_per; the others ignore it.  h is on the
+ * species' formation-enthalpy scale (see molq_spec_set_formation_enthalpy:
+ * elements in their reference states at 298.15 K are zero), so reacting
+ * mixtures balance energy.  s includes the ideal mixing term
+ * -R sum x_k ln x_k (a species with x_k = 0 contributes nothing), each
+ * species at the mixture pressure p.  Added in 0.1.0. */
+typedef enum molq_mix_property {
+    MOLQ_MIX_MOLAR_MASS = 0,   /* mean molar mass, kg/mol (ignores per)   */
+    MOLQ_MIX_GAS_CONSTANT = 1, /* specific gas constant R/M, J/(kg K)
+                                  (ignores per)                           */
+    MOLQ_MIX_CP = 2,           /* frozen cp                               */
+    MOLQ_MIX_CV = 3,           /* frozen cv                               */
+    MOLQ_MIX_H = 4,
+    MOLQ_MIX_U = 5,            /* h - RT per mole                         */
+    MOLQ_MIX_S = 6,            /* with the mixing term                    */
+    MOLQ_MIX_G = 7,            /* h - T s                                 */
+    MOLQ_MIX_GAMMA = 8,        /* cp / cv, 1                              */
+    MOLQ_MIX_SOUND_SPEED = 9,  /* frozen sqrt(gamma R T / M), m/s         */
+    MOLQ_MIX_DCP_DT = 10,      /* d(cp)/dT at fixed composition and p     */
+    MOLQ_MIX_DCV_DT = 11       /* d(cv)/dT (= d(cp)/dT for ideal gases)   */
+} molq_mix_property;
+
+/* @return the number of mixture properties (grows with the library). */
+MOLQ_API size_t molq_mix_property_count(void);
+
+/* @return the name of a mixture property ("cp", "sound_speed", ...),
+ *         static, or NULL for an unknown value.  Added in 0.1.0. */
+MOLQ_API const char *molq_mix_property_name(molq_mix_property prop);
+
+/* Look a mixture property up by its name.
+ * @return MOLQ_OK, MOLQ_EARG (NULL), MOLQ_ENOTFOUND.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mix_property_from_name(const char *name,
+                                                 molq_mix_property *out);
+
+/* A new config holding the defaults: method MOLQ_MIX_EXACT; composition
+ * tolerance 1e-6; no normalisation; temperature tolerance 1e-10
+ * (relative); 100 iterations at most; temperature bounds from the species
+ * (see molq_mixture_temperature_bounds).
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOMEM.  *out is the caller's; free it
+ * with molq_mix_config_free.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mix_config_new(molq_mix_config **out);
+
+/* Accepts NULL.  Added in 0.1.0. */
+MOLQ_API void molq_mix_config_free(molq_mix_config *cfg);
+
+/* @return MOLQ_OK, MOLQ_EARG (NULL or unknown method).  Added in 0.1.0. */
+MOLQ_API molq_status molq_mix_config_set_method(molq_mix_config *cfg,
+                                                molq_mix_method method);
+
+/* Composition checks applied to every cell (tol finite, 0 <= tol < 0.1):
+ * a fraction below -tol, a NaN or infinite fraction, or (without
+ * normalisation) a sum farther than tol from 1 is refused; fractions in
+ * [-tol, 0) count as 0.  With normalise != 0 any finite positive sum is
+ * accepted and the fractions are divided by it (never written back).
+ * @return MOLQ_OK, MOLQ_EARG (NULL), MOLQ_EVALUE (tol).  Added in 0.1.0. */
+MOLQ_API molq_status molq_mix_config_set_composition(molq_mix_config *cfg,
+                                                     double tol,
+                                                     int normalise);
+
+/* Temperature inversion: relative tolerance in T (1e-15 <= rtol <= 1e-3)
+ * and the largest number of forward evaluations per cell (1 .. 10000).
+ * @return MOLQ_OK, MOLQ_EARG (NULL), MOLQ_EVALUE.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mix_config_set_inversion(molq_mix_config *cfg,
+                                                   double rtol,
+                                                   unsigned max_evaluations);
+
+/* Bracket searched by molq_mixture_temperature, K.  Must satisfy
+ * 0 < t_lo < t_hi, finite; t_lo must not lie below the mixture's lowest
+ * evaluable temperature (checked at creation).
+ * @return MOLQ_OK, MOLQ_EARG (NULL), MOLQ_EVALUE.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mix_config_set_temperature_bounds(
+    molq_mix_config *cfg, double t_lo, double t_hi);
+
+/* Make a mixture of n >= 1 species (distinct handles, distinct names), in
+ * that order.  cfg may be NULL.  On failure nothing is allocated and err
+ * names the offending entry.
+ * @return MOLQ_OK, MOLQ_EARG (NULL species entry, n = 0), MOLQ_EDUPLICATE,
+ *         MOLQ_EVALUE (bounds below a species' t_min), MOLQ_ELIMIT (over
+ *         100000 species), MOLQ_ENOMEM.
+ * Ownership: *out is the caller's (molq_mixture_free); the species are
+ * borrowed.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_create(const molq_species *const *species,
+                                         size_t n, const molq_mix_config *cfg,
+                                         molq_mixture **out, char *err,
+                                         size_t errlen);
+
+/* As molq_mixture_create, looking each name up in db (by name, then by
+ * formula).  @return as molq_mixture_create, and MOLQ_ENOTFOUND naming the
+ * name.  The mixture borrows db's species: free it before db.
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_from_names(const molq_db *db,
+                                             const char *const *names,
+                                             size_t n,
+                                             const molq_mix_config *cfg,
+                                             molq_mixture **out, char *err,
+                                             size_t errlen);
+
+/* Accepts NULL.  Not while another thread uses the mixture.  Added 0.1.0. */
+MOLQ_API void molq_mixture_free(molq_mixture *mix);
+
+/* @return the number of species (0 for NULL).  Added in 0.1.0. */
+MOLQ_API size_t molq_mixture_species_count(const molq_mixture *mix);
+
+/* @return species k (borrowed), or NULL when out of range.  Added 0.1.0. */
+MOLQ_API const molq_species *molq_mixture_species(const molq_mixture *mix,
+                                                  size_t k);
+
+/* Index of the species named `name` (exact, case-sensitive).
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_ENOTFOUND.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_index(const molq_mixture *mix,
+                                        const char *name, size_t *out);
+
+/* @return the evaluation method chosen at creation.  Added in 0.1.0. */
+MOLQ_API molq_mix_method molq_mixture_method(const molq_mixture *mix);
+
+/* Bracket of molq_mixture_temperature, K: the config's, or else the
+ * intersection of the species' validated ranges (a species without one
+ * contributes [molq_species_t_min, 6000 K]).  Forward evaluation is not
+ * limited to it: it refuses only T below the largest species t_min.
+ * @return MOLQ_OK, MOLQ_EARG.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_temperature_bounds(const molq_mixture *mix,
+                                                     double *t_lo,
+                                                     double *t_hi);
+
+/* Batch layout used by every mixture call.  Cell c (0 .. ncells-1) reads
+ *   T[c * T_stride], p[c * p_stride]                (stride 0: one value)
+ *   X[c * X_cell + k * X_species]  for species k    (fractions)
+ * so cell-major Y[cell][k] is (X_cell = K, X_species = 1), species-major
+ * Y[k][cell] is (X_cell = 1, X_species = ncells or the row pitch), and
+ * X_cell = 0 gives every cell the same composition.  Strides count
+ * doubles.  Inputs are never written.
+ *
+ * All-or-nothing: every input of every cell is checked before anything is
+ * written.  On failure *bad_cell (when not NULL) receives the failing
+ * cell's index, err names the cell, the species and the field, and out is
+ * untouched.  On success *bad_cell receives ncells. */
+
+/* Mixture properties: out[c * out_cell + j * out_prop] = props[j] of cell
+ * c at (T, p, composition).  Units per `per` (see molq_mix_property).
+ * @return MOLQ_OK; MOLQ_EARG (NULL pointer, unknown enum, a zero stride
+ *         where one is needed: X_species, and out_prop when nprops > 1);
+ *         MOLQ_EDOMAIN (T or p not finite and > 0); MOLQ_ERANGE (T below
+ *         the largest species t_min); MOLQ_EVALUE (composition, see
+ *         molq_mix_config_set_composition).  Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_eval(
+    const molq_mixture *mix, size_t ncells, const double *T, size_t T_stride,
+    const double *p, size_t p_stride, const double *X, size_t X_cell,
+    size_t X_species, molq_basis basis, const molq_mix_property *props,
+    size_t nprops, molq_per per, double *out, size_t out_cell,
+    size_t out_prop, size_t *bad_cell, char *err, size_t errlen);
+
+/* Per-species vectors for kinetics, diffusion and Jacobians:
+ * out[c * out_cell + k * out_species + j * out_prop] = props[j] of pure
+ * species k at (T, p) of cell c (any molq_property; pass p = 1e5 Pa for
+ * standard-state s_k and g_k).  With MOLQ_PER_MASS extensive properties
+ * are divided by the species' molar mass: h_k/W_k is the partial
+ * derivative of the mixture's h per mass with respect to Y_k (u_k/W_k
+ * likewise for u), and cp_k is d(h_k)/dT.  For g_k/RT use MOLQ_G divided
+ * by RT, or MOLQ_DGRT_DT for its T derivative.
+ * @return as molq_mixture_eval (no composition).  Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_eval_species(
+    const molq_mixture *mix, size_t ncells, const double *T, size_t T_stride,
+    const double *p, size_t p_stride, const molq_property *props,
+    size_t nprops, molq_per per, double *out, size_t out_cell,
+    size_t out_species, size_t out_prop, size_t *bad_cell, char *err,
+    size_t errlen);
+
+/* Convert compositions: from `from` fractions X to the other basis in
+ * out[c * out_cell + k * out_species] (normalised to sum 1; clipped
+ * negatives written as 0).  out must not overlap X.
+ * @return MOLQ_OK, MOLQ_EARG, MOLQ_EVALUE.  Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_convert(
+    const molq_mixture *mix, size_t ncells, molq_basis from, const double *X,
+    size_t X_cell, size_t X_species, double *out, size_t out_cell,
+    size_t out_species, size_t *bad_cell, char *err, size_t errlen);
+
+/* Temperature from energy or entropy: for each cell the T in the bracket
+ * (molq_mixture_temperature_bounds) at which property `given` (MOLQ_MIX_H,
+ * MOLQ_MIX_U or MOLQ_MIX_S, per `per`) of the cell's composition (and p,
+ * for s; p is ignored for h and u, which do not depend on it) equals
+ * value[c * value_stride].  Safeguarded Newton with the analytic cp, cv or
+ * cp/T inside a bracket that shrinks with every evaluation; converged when
+ * the step is below rtol * T (molq_mix_config_set_inversion).  T_guess
+ * (NULL for none, stride 0 for one value) warm-starts the search (the
+ * previous time step's T); a guess outside the bracket is clamped.
+ * iterations (NULL for none) receives, contiguously, the forward
+ * evaluations each cell used.  T_out[c * T_out_stride].
+ * @return MOLQ_OK; MOLQ_EARG; MOLQ_EDOMAIN (value, p or guess not finite;
+ *         p <= 0 for s); MOLQ_EVALUE (composition); MOLQ_ERANGE (the
+ *         value lies outside what the bracket's ends give: err gives the
+ *         cell, the value and the attainable interval); MOLQ_ENOCONV (the
+ *         evaluation limit was reached).  Inputs of every cell are
+ *         checked before anything is written (EARG, EDOMAIN, EVALUE leave
+ *         T_out untouched); a range or convergence failure is found while
+ *         solving: then cells 0 .. *bad_cell - 1 hold their solved T (and
+ *         iterations), the rest of T_out is untouched.
+ * Added in 0.1.0. */
+MOLQ_API molq_status molq_mixture_temperature(
+    const molq_mixture *mix, molq_mix_property given, molq_per per,
+    size_t ncells, const double *value, size_t value_stride, const double *p,
+    size_t p_stride, const double *X, size_t X_cell, size_t X_species,
+    molq_basis basis, const double *T_guess, size_t guess_stride,
+    double *T_out, size_t T_out_stride, unsigned *iterations,
+    size_t *bad_cell, char *err, size_t errlen);
 
 #ifdef MOLQ_EXPERIMENTAL
 /* ------------------------------------------------------------------------ */

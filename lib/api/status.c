@@ -29,6 +29,7 @@ const char *molq_status_string(molq_status status)
         "temperature or pressure not finite and positive",
         "temperature outside the validity range of a model",
         "input exceeds a size limit",
+        "iteration did not converge",
     };
     if ((int)status < 0 || (size_t)status >= sizeof text / sizeof text[0])
         return "unknown status";
