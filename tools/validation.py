@@ -618,6 +618,9 @@ def main(argv=None):
     failures = check(results, orphans, uncovered, reactions, rec)
     sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
     import validation_report
+    for problem in validation_report.link_problems(
+            validation_report.validation_markdown(rec)):
+        failures.append("docs/validation.md: %s" % problem)
     for path in validation_report.stale_markdown(rec, ROOT):
         failures.append("%s does not match the record: run tools/validation.py report "
                         "(docs/validation.md says how)" % path)
