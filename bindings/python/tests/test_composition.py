@@ -3,7 +3,6 @@ binding.  Standard atomic weights IUPAC 2021 (from memory, as in
 lib/data/formula.c); electron molar mass 5.48579909065e-4 g/mol (CODATA
 2018)."""
 
-import json
 import sys
 import unittest
 from pathlib import Path
