@@ -11,6 +11,7 @@ the numbers are only shaped like real ones.  Run after a format change:
 
     python3 fuzz/make_file_seeds.py
 """
+import glob
 import json
 import os
 
@@ -152,6 +153,37 @@ SEEDS = {
 }
 
 
+DATA = os.path.join(os.path.dirname(os.path.dirname(os.path.abspath(
+    __file__))), "data", "species")
+
+
+def seed_name(name):
+    """A file-name-safe form of a species name (NO+ -> NO_plus)."""
+    return name.replace("+", "_plus").replace("-", "_minus")
+
+
+def write_data_seeds():
+    """One seed per built-in species, data_<name>.json, copied from
+    data/species/*.json as it is now, so the corpus carries the real shapes
+    (many modes, torsions, several electronic states, the levels model) and
+    current values.  One species a file keeps each seed below run.sh's
+    -max_len 8192 for species files.  Stale data_*.json are removed first."""
+    for old in glob.glob(os.path.join(OUT, "data_*.json")):
+        os.remove(old)
+    n = 0
+    for path in sorted(glob.glob(os.path.join(DATA, "*.json"))):
+        with open(path) as f:
+            doc = json.load(f)
+        for sp in doc["species"]:
+            text = json.dumps({"schema_version": doc.get("schema_version", 1),
+                               "species": [sp]}, separators=(",", ":"))
+            with open(os.path.join(OUT, "data_%s.json" % seed_name(
+                    sp["name"])), "w") as f:
+                f.write(text + "\n")
+            n += 1
+    return n
+
+
 def main():
     os.makedirs(OUT, exist_ok=True)
     for name, species in SEEDS.items():
@@ -163,7 +195,8 @@ def main():
     with open(os.path.join(OUT, "gen_bom_no_version.json"), "wb") as f:
         f.write(b"\xef\xbb\xbf" + json.dumps(
             {"species": [poly("pbom", 6, 1)]}).encode())
-    print("wrote %d seeds to %s" % (len(SEEDS) + 1, OUT))
+    n = len(SEEDS) + 1 + write_data_seeds()
+    print("wrote %d seeds to %s" % (n, OUT))
 
 
 if __name__ == "__main__":

@@ -3,8 +3,10 @@
 
     tools/validation.py check     compare, then fail (exit 1) when any species/model is
                                   worse than its recorded figure, a compared species has no
-                                  record, a recorded species/model is gone, or docs/validation.md
-                                  or the README summary no longer match the record
+                                  record, a recorded species/model is gone, a built-in species
+                                  has neither a table nor a 298.15 K line, docs/validation.md
+                                  or the README summary no longer match the record, or a link
+                                  in docs/validation.md misses its species' anchor
     tools/validation.py record    compare and write the figures to
                                   tests/data/validation_record.json
     tools/validation.py report    write docs/validation.md and the README summary from the
@@ -540,9 +542,9 @@ def check(results, orphans, uncovered, reactions, record, out=sys.stdout):
     if orphans:
         print("\nreference data without a built-in species (not compared): %s"
               % ", ".join(orphans), file=out)
-    if uncovered:
-        print("built-in species without a table or a 298.15 K reference line: %s"
-              % ", ".join(uncovered), file=out)
+    for name in uncovered:
+        failures.append("%s: built-in species without a NIST-JANAF table in tests/data/janaf/ "
+                        "or a line in tests/data/reference_298.tsv" % name)
     if improved:
         print("\nimproved beyond the margin (run `tools/validation.py record` to tighten "
               "the guard): %s" % ", ".join(improved), file=out)
@@ -618,6 +620,9 @@ def main(argv=None):
     failures = check(results, orphans, uncovered, reactions, rec)
     sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
     import validation_report
+    for problem in validation_report.link_problems(
+            validation_report.validation_markdown(rec)):
+        failures.append("docs/validation.md: %s" % problem)
     for path in validation_report.stale_markdown(rec, ROOT):
         failures.append("%s does not match the record: run tools/validation.py report "
                         "(docs/validation.md says how)" % path)

@@ -1358,22 +1358,12 @@ class LevelsFile(unittest.TestCase):
                           "electronic"])
 
 
-SPECIES_DIR = Path(__file__).resolve().parents[2] / "data" / "species"
+sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
+from species_data import species_files  # noqa: E402 (tests/species_data.py)
 LIST_SOURCES = DATA / "list_sources.json"
 LIST_CSV_HEADER = ["name", "formula", "charge", "structure", "model",
                    "molar_mass", "formation_enthalpy", "t_low", "t_high",
                    "set", "source_summary", "source"]
-
-
-def species_files():
-    """name -> entry of every built-in species, read from the species
-    files themselves (data/species/*.json), not through molq."""
-    out = {}
-    for path in sorted(SPECIES_DIR.glob("*.json")):
-        with open(path, encoding="utf-8") as f:
-            for entry in json.load(f)["species"]:
-                out[entry["name"]] = entry
-    return out
 
 
 def charge_of(formula):

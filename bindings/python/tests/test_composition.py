@@ -3,26 +3,17 @@ binding.  Standard atomic weights IUPAC 2021 (from memory, as in
 lib/data/formula.c); electron molar mass 5.48579909065e-4 g/mol (CODATA
 2018)."""
 
-import json
+import sys
 import unittest
 from pathlib import Path
 
 import molq
 
-SPECIES_DIR = Path(__file__).resolve().parents[3] / "data" / "species"
+# the helper shared with the command-line tests (tests/species_data.py)
+sys.path.insert(0, str(Path(__file__).resolve().parents[3] / "tests"))
+from species_data import species_files  # noqa: E402
 DEMO = Path(__file__).resolve().parents[3] / "tests" / "cli" / "data" / \
     "demo_species.json"
-
-
-def species_files():
-    """Every built-in species entry, read from data/species/*.json itself
-    (not through molq): {name: entry}."""
-    out = {}
-    for path in sorted(SPECIES_DIR.glob("*.json")):
-        with open(path, encoding="utf-8") as f:
-            for entry in json.load(f)["species"]:
-                out[entry["name"]] = entry
-    return out
 
 
 class Composition(unittest.TestCase):
