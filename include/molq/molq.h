@@ -105,7 +105,9 @@ typedef enum molq_status {
                             species' results mean something (a model's
                             limit or the Boltzmann-gas limit, see
                             molq_species_t_min), or so extreme that a
-                            result would overflow a double.  MOLQ_OK always
+                            result would overflow a double; for
+                            molq_mixture_temperature, a value beyond what
+                            the temperature bounds attain.  MOLQ_OK always
                             comes with finite numbers. */
     MOLQ_ELIMIT = 12,    /* input exceeds a documented size limit */
     MOLQ_ENOCONV = 13    /* an iteration did not converge within its
